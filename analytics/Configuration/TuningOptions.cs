@@ -1,0 +1,15 @@
+namespace LoopWatch.Analytics.Configuration;
+
+/// <summary>Controller tuning as known from the control system; optional, used by the oscillation and advice code.</summary>
+public sealed class TuningOptions
+{
+    /// <summary>Controller gain (dimensionless, % output per % of PV span).</summary>
+    public double? Kc { get; set; }
+
+    /// <summary>Proportional band in %; PB = 100 / Kc.</summary>
+    public double? PbPct { get; set; }
+
+    public double? TiSeconds { get; set; }
+    public double? TdSeconds { get; set; }
+    public double? DeadTimeSeconds { get; set; }
+}

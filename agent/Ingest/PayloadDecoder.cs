@@ -17,8 +17,8 @@ public static class PayloadDecoder
     private static readonly JsonReaderOptions ReaderOptions = new() { MaxDepth = 4, CommentHandling = JsonCommentHandling.Disallow };
     private static readonly long Epoch = DateTimeOffset.UnixEpoch.UtcTicks;
 
-    /// <summary>Decodes <paramref name="payload"/> for a tag of kind <paramref name="signal"/>.</summary>
-    public static RejectReason Decode(ReadOnlySpan<byte> payload, Signal signal, out DecodedValue value)
+    /// <summary>Decodes <paramref name="payload"/> for a tag carrying <paramref name="signal"/> values.</summary>
+    public static RejectReason Decode(ReadOnlySpan<byte> payload, TagValueKind signal, out DecodedValue value)
     {
         value = default;
         if (payload.Length > MaxPayloadBytes) return RejectReason.TooLarge;
@@ -30,16 +30,16 @@ public static class PayloadDecoder
         return reason;
     }
 
-    private static RejectReason DecodeScalar(ReadOnlySpan<byte> text, Signal signal, out double v)
+    private static RejectReason DecodeScalar(ReadOnlySpan<byte> text, TagValueKind signal, out double v)
     {
         if (Utf8Parser.TryParse(text, out v, out var used) && used == text.Length)
             return double.IsFinite(v) ? RejectReason.None : RejectReason.NotFinite;
-        if (signal is Signal.Op or Signal.Mode)
+        if (signal is TagValueKind.Binary or TagValueKind.Mode)
         {
             if (Is(text, "true"u8) || Is(text, "on"u8)) { v = 1; return RejectReason.None; }
             if (Is(text, "false"u8) || Is(text, "off"u8)) { v = 0; return RejectReason.None; }
         }
-        if (signal == Signal.Mode)
+        if (signal == TagValueKind.Mode)
         {
             if (Is(text, "auto"u8) || Is(text, "automatic"u8)) { v = (double)LoopMode.Auto; return RejectReason.None; }
             if (Is(text, "manual"u8) || Is(text, "man"u8)) { v = (double)LoopMode.Manual; return RejectReason.None; }
@@ -51,7 +51,7 @@ public static class PayloadDecoder
         return RejectReason.NotANumber;
     }
 
-    private static RejectReason DecodeJson(ReadOnlySpan<byte> json, Signal signal, out DecodedValue value)
+    private static RejectReason DecodeJson(ReadOnlySpan<byte> json, TagValueKind signal, out DecodedValue value)
     {
         value = default;
         double v = 0;
@@ -98,7 +98,7 @@ public static class PayloadDecoder
         return RejectReason.None;
     }
 
-    private static RejectReason ReadValue(ref Utf8JsonReader reader, Signal signal, out double v)
+    private static RejectReason ReadValue(ref Utf8JsonReader reader, TagValueKind signal, out double v)
     {
         v = 0;
         switch (reader.TokenType)
@@ -106,8 +106,8 @@ public static class PayloadDecoder
             case JsonTokenType.Number:
                 if (!reader.TryGetDouble(out v)) return RejectReason.NotANumber;
                 return double.IsFinite(v) ? RejectReason.None : RejectReason.NotFinite;
-            case JsonTokenType.True when signal is Signal.Op or Signal.Mode: v = 1; return RejectReason.None;
-            case JsonTokenType.False when signal is Signal.Op or Signal.Mode: v = 0; return RejectReason.None;
+            case JsonTokenType.True when signal is TagValueKind.Binary or TagValueKind.Mode: v = 1; return RejectReason.None;
+            case JsonTokenType.False when signal is TagValueKind.Binary or TagValueKind.Mode: v = 0; return RejectReason.None;
             case JsonTokenType.String:
                 if (reader.ValueIsEscaped || reader.HasValueSequence) return RejectReason.NotANumber;
                 return DecodeScalar(reader.ValueSpan, signal, out v);

@@ -68,7 +68,7 @@ public sealed class PlantState : IPlantView
             Interlocked.Increment(ref _unknown);
             return RejectReason.None;
         }
-        var reason = PayloadDecoder.Decode(payload, route.Signal, out var value);
+        var reason = PayloadDecoder.Decode(payload, route.ValueKind, out var value);
         if (reason != RejectReason.None)
         {
             Interlocked.Increment(ref route.Rejected);
@@ -139,7 +139,16 @@ public sealed class PlantState : IPlantView
         _ => hasTag ? "unknown" : "auto",
     };
 
-    private void Add(LoopCell cell, Signal signal, string tag) => _routes[tag] = new TagRoute(cell, signal, tag);
+    private void Add(LoopCell cell, Signal signal, string tag)
+    {
+        var kind = signal switch
+        {
+            Signal.Mode => TagValueKind.Mode,
+            Signal.Op when cell.Spec.Kind == LoopKind.OnOff => TagValueKind.Binary,
+            _ => TagValueKind.Analog,
+        };
+        _routes[tag] = new TagRoute(cell, signal, tag, kind);
+    }
 
     private void LogReject(string topic, RejectReason reason)
     {

@@ -93,7 +93,8 @@ public sealed class OffsetDetector : LoopDetector
             _count = 0;
             return;
         }
-        if (_count > 0 && sign != _sign) _count = 0;
+        // An oscillating PV is not steady: the offset must then last its full time after the oscillation ends.
+        if ((_count > 0 && sign != _sign) || board.IsActive(FindingKinds.Oscillation)) _count = 0;
         if (_count == 0)
         {
             _start = sample.Ticks;
@@ -102,7 +103,7 @@ public sealed class OffsetDetector : LoopDetector
             _saturated = 0;
         }
         Accumulate(sample, e);
-        if (sample.Ticks - _start < _minTicks || board.IsActive(FindingKinds.Oscillation)) return;
+        if (sample.Ticks - _start < _minTicks) return;
         var mean = _sum / _count;
         var variance = Math.Max(0, _sumSquares / _count - mean * mean);
         if (Math.Sqrt(variance) > _options.SteadyRatio * Math.Abs(mean)) return;

@@ -14,6 +14,8 @@ namespace LoopWatch.Analytics.Oscillation;
 /// </summary>
 public sealed class OscillationDetector : LoopDetector
 {
+    // Enough samples a period for interpolated ACF crossings to place the period within a fraction of a percent.
+    private const int WorkSamplesPerPeriod = 32;
     private const string AcfMethod = "acf-regularity", IaeMethod = "iae-count", BothMethods = "acf-regularity+iae-count";
 
     private readonly LoopSpec _spec;
@@ -25,7 +27,7 @@ public sealed class OscillationDetector : LoopDetector
     private readonly double _windowSampleS, _defaultUltimateS;
 
     private double _sumError, _sumOutput;
-    private int _summed, _sinceEvaluation;
+    private int _summed, _sinceEvaluation, _workStep = 1;
     private bool _wasAuto = true, _regular, _active;
     private double _observedPeriodS = double.NaN, _activePeriodS;
     private long _lastEvidenceTicks;
@@ -116,21 +118,40 @@ public sealed class OscillationDetector : LoopDetector
 
     private void Evaluate(FindingBoard board, long ticks)
     {
-        var n = _error.CopyTo(_errorWork);
-        var x = _errorWork.AsSpan(0, n);
+        var step = _workStep;
+        var x = Shrink(_errorWork, _error.CopyTo(_errorWork), step);
         LagCorrelation.Center(x);
-        var acf = AcfRegularity.Measure(x, n / 2, _crossings);
-        LastAcf = acf;
-        _regular = acf.Regularity > _options.RegularityLimit && acf.Peak >= _options.MinAcfPeak
-            && acf.PeriodSamples * Decimation >= _options.MinPeriodSamples
-            && _error.HalfRange(TwoPeriods(acf.PeriodSamples * _windowSampleS)) >= _spec.Limits.OscillationAmplitudePct;
+        var acf = AcfRegularity.Measure(x, x.Length / 2, _crossings);
+        var periodSamples = acf.PeriodSamples * step;
+        LastAcf = acf with { PeriodSamples = periodSamples };
+        var regular = acf.Regularity > _options.RegularityLimit;
+        _regular = regular && acf.Peak >= _options.MinAcfPeak
+            && periodSamples * Decimation >= _options.MinPeriodSamples
+            && _error.HalfRange(TwoPeriods(periodSamples * _windowSampleS)) >= _spec.Limits.OscillationAmplitudePct;
+        // The ACF costs n^2: a long period is measured on block means, 32 to a period; anything else goes back to full rate.
+        _workStep = regular ? Math.Clamp((int)(periodSamples / WorkSamplesPerPeriod), 1, Math.Max(1, _error.Capacity / 256)) : 1;
         if (_regular)
         {
-            _observedPeriodS = acf.PeriodSamples * _windowSampleS;
+            _observedPeriodS = periodSamples * _windowSampleS;
             _lastEvidenceTicks = ticks;
         }
         if (_active && board.IsActive(FindingKinds.Oscillation)) board.Set(Build(ticks, DateTimeOffset.MinValue));
         else if (_regular) Raise(board, ticks);
+    }
+
+    /// <summary>Block means of <paramref name="step"/> values, in place; returns the shortened window.</summary>
+    private static Span<float> Shrink(float[] values, int count, int step)
+    {
+        if (step <= 1) return values.AsSpan(0, count);
+        var m = count / step;
+        var skip = count - m * step;
+        for (var i = 0; i < m; i++)
+        {
+            float sum = 0;
+            for (var j = 0; j < step; j++) sum += values[skip + i * step + j];
+            values[i] = sum / step;
+        }
+        return values.AsSpan(0, m);
     }
 
     private void Raise(FindingBoard board, long ticks)
@@ -156,15 +177,15 @@ public sealed class OscillationDetector : LoopDetector
     {
         // Horch (1999) states his test for processes without integration; a level loop's CCF is even either way.
         if (_spec.Process == ProcessKind.Level || _error.Count < 2) return CauseHints.Unknown;
-        var n = _error.CopyTo(_errorWork);
-        _output.CopyTo(_outputWork);
-        var pv = _errorWork.AsSpan(0, n);
-        var op = _outputWork.AsSpan(0, n);
+        var step = _workStep;
+        var pv = Shrink(_errorWork, _error.CopyTo(_errorWork), step);
+        var op = Shrink(_outputWork, _output.CopyTo(_outputWork), step);
+        var n = pv.Length;
         LagCorrelation.Center(pv);
         LagCorrelation.Center(op);
         // PV deviation is -e: exact while SP holds still, which is when an oscillation is judged.
         for (var i = 0; i < n; i++) pv[i] = -pv[i];
-        var maxLag = (int)Math.Min(n / 2, Math.Ceiling(periodSamples));
+        var maxLag = (int)Math.Min(n / 2, Math.Ceiling(periodSamples / step));
         LastPhaseDegrees = StictionCorrelation.PhaseDegrees(op, pv, maxLag);
         return StictionCorrelation.Classify(LastPhaseDegrees, _options.OddPhaseDegrees, _options.EvenPhaseDegrees);
     }
@@ -194,6 +215,7 @@ public sealed class OscillationDetector : LoopDetector
         _sumError = _sumOutput = 0;
         _summed = _sinceEvaluation = 0;
         _regular = false;
+        _workStep = 1;
         LastAcf = AcfPeriod.None;
     }
 }

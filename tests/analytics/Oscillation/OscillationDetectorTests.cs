@@ -130,6 +130,39 @@ public class OscillationDetectorTests
     }
 
     [Fact]
+    public void PiLoopTunedAboveUltimateGain_RaisesOscillation_HintsTuning()
+    {
+        // Kp = 1, T = 60 s, L = 10 s has an ultimate gain of about 10 (phase crossover of first order plus dead time, textbook);
+        // Kc = 11 grows until the output saturates, a relay-like cycle near the ultimate period of about 37 s.
+        var options = PidLoopRig.Options("flow", ti: 120, kc: 11);
+        var rig = new PidLoopRig(PidLoopRig.Check(options));
+        var loop = new PidLoopModel(options, new PidLoopSetup
+        {
+            Kc = 11, TiSeconds = 120, ProcessGain = 1, TauSeconds = 60, DeadTimeSeconds = 10, NoiseSigmaPct = 0.1, LoadSteps = [(60, 3)],
+        });
+
+        rig.Run(loop, 3600);
+
+        var finding = rig.Active<OscillationFinding>();
+        Assert.NotNull(finding);
+        Assert.InRange(finding.PeriodS, 35, 45);
+        // Horch (1999): too much gain gives an even OP-PV cross-correlation.
+        Assert.Equal(CauseHints.TuningOrDisturbance, finding.CauseHint);
+    }
+
+    [Fact]
+    public void LevelLoop_CauseHintIsUnknown()
+    {
+        var rig = Sinusoid(2.0, 7200, process: "level");
+
+        var finding = rig.Active<OscillationFinding>();
+        Assert.NotNull(finding);
+        // Horch (1999) states the cross-correlation test for processes without integration (from memory): no hint for levels.
+        Assert.Equal(CauseHints.Unknown, finding.CauseHint);
+        Assert.Equal(60, finding.PeriodS, 60 * 0.02);
+    }
+
+    [Fact]
     public void HealthyPiLoopWithFilteredNoise_AnHour_RaisesNothing()
     {
         var options = PidLoopRig.Options("flow", ti: 30, kc: 1);

@@ -1,12 +1,91 @@
+using LoopWatch.Agent.Configuration;
+using LoopWatch.Agent.Demo;
+using LoopWatch.Agent.Plant;
+using Microsoft.AspNetCore.Builder;
+
 namespace LoopWatch.Agent;
 
-/// <summary>Parses the verb and dispatches.</summary>
+/// <summary>Parses the verb and dispatches: <c>demo</c>, <c>run</c>, <c>check</c>.</summary>
 public static class Cli
 {
-    /// <summary>Runs one verb to completion.</summary>
-    public static Task<int> RunAsync(string[] args, TextWriter stdout, TextWriter stderr)
+    private const string Usage = """
+        usage:
+          loopwatch demo  [--speed N] [--data-dir DIR] [--config FILE]   simulated plant through the real agent
+          loopwatch run   --config FILE [--data-dir DIR]                  watch the loops the configuration names
+          loopwatch check --config FILE                                   check a configuration and exit
+        """;
+
+    /// <summary>Runs one verb to completion; 0 ok, 1 runtime failure, 2 usage or configuration error.</summary>
+    public static async Task<int> RunAsync(string[] args, TextWriter stdout, TextWriter stderr, CancellationToken stop = default)
     {
-        stderr.WriteLine("usage: loopwatch demo|run");
-        return Task.FromResult(2);
+        if (args.Length == 0 || args[0] is "-h" or "--help" or "help") { stdout.WriteLine(Usage); return args.Length == 0 ? 2 : 0; }
+        var errors = new List<string>();
+        var verb = args[0];
+        var cli = CliArguments.Parse(args.Skip(1), new HashSet<string>(), errors);
+        switch (verb)
+        {
+            case "demo":
+            case "run":
+            case "check":
+                return await RunAgentAsync(verb, cli, errors, stdout, stderr, stop);
+            default:
+                stderr.WriteLine($"loopwatch: unknown verb '{verb}'");
+                stderr.WriteLine(Usage);
+                return 2;
+        }
+    }
+
+    private static async Task<int> RunAgentAsync(string verb, CliArguments cli, List<string> errors, TextWriter stdout, TextWriter stderr, CancellationToken stop)
+    {
+        var demo = verb == "demo";
+        var configFile = cli.Get("config");
+        if (!demo && configFile is null) errors.Add("--config: is required");
+        var speed = demo ? cli.Number("speed", 1, errors) : 1;
+        var overrides = new Dictionary<string, string?>();
+        if (cli.Get("data-dir") is { } dir) overrides["LoopWatch:DataDir"] = dir;
+        foreach (var unused in cli.Unused()) errors.Add($"--{unused}: unknown option for '{verb}'");
+        if (cli.Operands.Count > 0) errors.Add($"unexpected argument '{cli.Operands[0]}'");
+
+        AgentOptions? seed = null;
+        if (demo)
+        {
+            seed = new AgentOptions { Broker = new BrokerOptions { Embedded = true } };
+            seed.Loops.AddRange(new DemoPlant().Configuration);
+        }
+        var options = errors.Count == 0 ? AgentConfiguration.Load(configFile, overrides, errors, seed) : new AgentOptions();
+        var specs = errors.Count == 0 ? AgentOptionsCheck.Check(options, errors) : [];
+        if (errors.Count > 0)
+        {
+            foreach (var e in errors) stderr.WriteLine($"loopwatch: {e}");
+            return 2;
+        }
+        if (verb == "check")
+        {
+            stdout.WriteLine($"configuration ok: {specs.Count} loops");
+            return 0;
+        }
+
+        var time = TimeProvider.System;
+        var run = demo ? new DemoRun(speed, time.GetUtcNow()) : null;
+        await using var app = AgentHost.Build(new AgentSetup(options, specs, run, time));
+        try
+        {
+            await app.StartAsync(stop);
+        }
+        catch (Exception e) when (e is IOException or System.Net.Sockets.SocketException || e.InnerException is System.Net.Sockets.SocketException)
+        {
+            stderr.WriteLine($"loopwatch: could not start: {e.Message}");
+            return 1;
+        }
+        var b = options.Broker;
+        stdout.WriteLine($"LoopWatch {verb}: {specs.Count} loops");
+        stdout.WriteLine($"  MQTT broker : mqtt://{b.Host}:{b.Port}{(b.Embedded ? " (embedded)" : "")}");
+        stdout.WriteLine($"  dashboard   : {string.Join(", ", AgentHost.DashboardAddresses(app))}");
+        stdout.WriteLine($"  data folder : {Path.GetFullPath(options.DataDir)}");
+        if (demo) stdout.WriteLine($"  demo plant  : Quillmoor Works at {speed}x");
+        stdout.WriteLine("Press Ctrl+C to stop.");
+        await app.WaitForShutdownAsync(stop);
+        stdout.WriteLine("LoopWatch stopped.");
+        return 0;
     }
 }

@@ -1,0 +1,72 @@
+using Microsoft.Extensions.Configuration;
+using LoopWatch.Agent.Broker;
+using LoopWatch.Agent.Demo;
+using LoopWatch.Agent.Ingest;
+using LoopWatch.Agent.Plant;
+using LoopWatch.Dashboard;
+using LoopWatch.Dashboard.Model;
+using Microsoft.AspNetCore.Builder;
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Hosting.Server;
+using Microsoft.AspNetCore.Hosting.Server.Features;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
+
+namespace LoopWatch.Agent;
+
+/// <summary>Builds the agent: broker (when embedded), demo plant (for <c>demo</c>), MQTT ingest, storage and dashboard in one Generic Host.</summary>
+public static class AgentHost
+{
+    /// <summary>Builds the web application without starting it.</summary>
+    public static WebApplication Build(AgentSetup setup, Action<ILoggingBuilder>? logging = null)
+    {
+        var builder = WebApplication.CreateBuilder(new WebApplicationOptions
+        {
+            Args = [],
+            ContentRootPath = AppContext.BaseDirectory,
+            EnvironmentName = "Production",
+        });
+        // The agent reads its own configuration (AgentConfiguration); the host gets none of the ASP.NET defaults (appsettings, ASPNETCORE_ vars).
+        builder.Configuration.Sources.Clear();
+        builder.Configuration.AddInMemoryCollection();
+        builder.WebHost.UseUrls(setup.Options.Dashboard.Urls);
+        builder.Logging.ClearProviders();
+        builder.Logging.AddSimpleConsole(o => { o.SingleLine = true; o.TimestampFormat = "HH:mm:ss "; });
+        builder.Logging.SetMinimumLevel(LogLevel.Information);
+        builder.Logging.AddFilter("Microsoft.AspNetCore", LogLevel.Warning);
+        logging?.Invoke(builder.Logging);
+
+        var services = builder.Services;
+        var opts = setup.Options;
+        services.AddSingleton(setup.Time);
+        services.AddSingleton(opts);
+        services.AddSingleton(opts.Broker);
+        services.AddSingleton(new PlantClock(setup.Time, setup.Demo?.Speed ?? 1));
+        services.AddSingleton(sp => new PlantState(setup.Specs, sp.GetRequiredService<PlantClock>(), setup.Time,
+            sp.GetRequiredService<ILogger<PlantState>>(), FindingLog(sp.GetRequiredService<ILogger<PlantState>>())));
+        services.AddSingleton<IPlantView>(sp => sp.GetRequiredService<PlantState>());
+
+        // Hosted services start in registration order: the broker before anyone connects to it.
+        if (opts.Broker.Embedded) services.AddHostedService<EmbeddedBroker>();
+        services.AddHostedService<MqttIngest>();
+        services.AddHostedService<PlantTicker>();
+        if (setup.Demo is { } demo)
+        {
+            services.AddSingleton(demo);
+            services.AddSingleton(new DemoPlant());
+            services.AddHostedService<PlantPublisher>();
+        }
+        services.AddLoopWatchDashboard();
+
+        var app = builder.Build();
+        app.MapLoopWatchDashboard();
+        return app;
+    }
+
+    /// <summary>The addresses Kestrel actually listens on (useful when the configuration asked for port 0).</summary>
+    public static IReadOnlyList<string> DashboardAddresses(WebApplication app) =>
+        app.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()?.Addresses.ToList() ?? [];
+
+    private static Action<Analytics.Findings.FindingChange> FindingLog(ILogger log) =>
+        change => AgentLog.FindingChanged(log, change.LoopId, change.Change.ToString().ToLowerInvariant(), change.Finding.Kind);
+}

@@ -1,0 +1,15 @@
+using LoopWatch.Analytics.Configuration;
+
+namespace LoopWatch.Agent.Configuration;
+
+/// <summary>The <c>LoopWatch</c> section of the configuration.</summary>
+public sealed class AgentOptions
+{
+    public BrokerOptions Broker { get; set; } = new();
+    public DashboardOptions Dashboard { get; set; } = new();
+
+    /// <summary>Folder of the database; default <c>./data</c>.</summary>
+    public string DataDir { get; set; } = "data";
+
+    public List<LoopOptions> Loops { get; set; } = [];
+}

@@ -1,0 +1,27 @@
+using LoopWatch.Analytics.Configuration;
+
+namespace LoopWatch.Agent.Configuration;
+
+/// <summary>Checks everything in <see cref="AgentOptions"/>; each message names the key.</summary>
+public static class AgentOptionsCheck
+{
+    /// <summary>Returns the loop specs; <paramref name="errors"/> lists every problem found.</summary>
+    public static IReadOnlyList<LoopSpec> Check(AgentOptions options, List<string> errors)
+    {
+        var b = options.Broker;
+        if (string.IsNullOrWhiteSpace(b.Host)) errors.Add("Broker:Host: is missing");
+        if (b.Port is < 1 or > 65535) errors.Add($"Broker:Port: {b.Port} is not a TCP port (1-65535)");
+        if (string.IsNullOrWhiteSpace(b.ClientId)) errors.Add("Broker:ClientId: is missing");
+        if (b.MaxPendingMessagesPerClient < 1) errors.Add("Broker:MaxPendingMessagesPerClient: must be at least 1");
+        if (b.Username is null && b.Password is not null) errors.Add("Broker:Username: is missing while Broker:Password is set");
+        foreach (var url in (options.Dashboard.Urls ?? "").Split(';', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
+        {
+            if (!Uri.TryCreate(url, UriKind.Absolute, out var uri) || (uri.Scheme != "http" && uri.Scheme != "https"))
+                errors.Add($"Dashboard:Urls: '{url}' is not an http(s) address");
+        }
+        if (string.IsNullOrWhiteSpace(options.Dashboard.Urls)) errors.Add("Dashboard:Urls: is missing");
+        if (string.IsNullOrWhiteSpace(options.DataDir)) errors.Add("DataDir: is missing");
+        if (options.Loops.Count == 0) errors.Add("Loops: no loop is configured");
+        return LoopOptionsCheck.Check(options.Loops, errors);
+    }
+}

@@ -1,0 +1,50 @@
+using LoopWatch.Analytics.Configuration;
+using LoopWatch.Analytics.Findings;
+using LoopWatch.Analytics.Monitoring;
+using LoopWatch.Analytics.Sampling;
+
+namespace LoopWatch.Agent.Ingest;
+
+/// <summary>One loop's live state: its monitor and trend, behind a lock so the dashboard can read while ingest writes.</summary>
+public sealed class LoopCell
+{
+    private readonly object _gate = new();
+    private readonly TrendBuffer _trend = new(TimeSpan.FromSeconds(5));
+
+    /// <summary>A cell for <paramref name="spec"/>; finding changes go to <paramref name="sink"/>.</summary>
+    public LoopCell(LoopSpec spec, Action<FindingChange>? sink)
+    {
+        var detectors = new List<LoopDetector>(DetectorSet.For(spec)) { new TrendRecorder(_trend) };
+        Monitor = new LoopMonitor(spec, sink, detectors);
+    }
+
+    /// <summary>The analytics of the loop; touch only under <see cref="Read{T}"/> or through the cell's methods.</summary>
+    internal LoopMonitor Monitor { get; }
+
+    /// <summary>The loop's definition.</summary>
+    public LoopSpec Spec => Monitor.Spec;
+
+    /// <summary>Takes one tag value.</summary>
+    public void Update(Signal signal, long ticks, double value, SampleQuality quality)
+    {
+        lock (_gate) Monitor.Update(signal, ticks, value, quality);
+    }
+
+    /// <summary>Moves the loop's clock on (stale detection).</summary>
+    public void Advance(long nowTicks)
+    {
+        lock (_gate) Monitor.Advance(nowTicks);
+    }
+
+    /// <summary>Reads the monitor consistently.</summary>
+    public T Read<T>(Func<LoopMonitor, T> read)
+    {
+        lock (_gate) return read(Monitor);
+    }
+
+    /// <summary>The trend since <paramref name="fromTicks"/>.</summary>
+    public List<Dashboard.Model.TrendPoint> Trend(long fromTicks)
+    {
+        lock (_gate) return _trend.Since(fromTicks);
+    }
+}

@@ -1,0 +1,41 @@
+namespace LoopWatch.Agent.Ingest;
+
+/// <summary>
+/// Event time of the plant: the newest timestamp seen, carried forward by the wall clock times the replay speed
+/// between messages. Used to notice stale loops in the same time the data speaks.
+/// </summary>
+public sealed class PlantClock(TimeProvider time, double speed = 1)
+{
+    private readonly object _gate = new();
+    private long _eventTicks;
+    private long _wallTicksAtEvent;
+
+    /// <summary>How many simulated seconds pass per wall second (1 live, N for <c>demo --speed N</c>).</summary>
+    public double Speed { get; } = speed;
+
+    /// <summary>Notes an event time; only newer times move the clock.</summary>
+    public void Observe(long eventTicks)
+    {
+        if (eventTicks <= Volatile.Read(ref _eventTicks)) return;
+        lock (_gate)
+        {
+            if (eventTicks <= _eventTicks) return;
+            _eventTicks = eventTicks;
+            _wallTicksAtEvent = time.GetUtcNow().UtcTicks;
+        }
+    }
+
+    /// <summary>The plant's time now (UTC ticks); the wall clock until the first event arrives.</summary>
+    public long NowTicks
+    {
+        get
+        {
+            lock (_gate)
+            {
+                var wall = time.GetUtcNow().UtcTicks;
+                if (_eventTicks == 0) return wall;
+                return _eventTicks + (long)((wall - _wallTicksAtEvent) * Speed);
+            }
+        }
+    }
+}

@@ -1,0 +1,99 @@
+using System.Diagnostics;
+using System.Net.Sockets;
+
+namespace LoopWatch.Agent.Tests.Infrastructure;
+
+/// <summary>
+/// A real Mosquitto broker started for one test on a free loopback port. A missing mosquitto binary fails the test
+/// (./test.sh installs it); it never skips.
+/// </summary>
+public sealed class Mosquitto : IAsyncDisposable
+{
+    private readonly Process _process;
+    private readonly string _dir;
+
+    private Mosquitto(Process process, string dir, int port)
+    {
+        _process = process;
+        _dir = dir;
+        Port = port;
+    }
+
+    public int Port { get; }
+
+    public static string Binary => File.Exists("/usr/sbin/mosquitto") ? "/usr/sbin/mosquitto" : Which("mosquitto")
+        ?? throw new InvalidOperationException("mosquitto is not installed: run ./test.sh, which installs the Debian package 'mosquitto'");
+
+    public static string Tool(string name) => Which(name)
+        ?? throw new InvalidOperationException($"{name} is not installed: run ./test.sh, which installs the Debian package 'mosquitto-clients'");
+
+    /// <summary>Starts the broker and waits until it accepts connections; <paramref name="extraConfig"/> lines are appended.</summary>
+    public static async Task<Mosquitto> StartAsync(int? port = null, string extraConfig = "")
+    {
+        var p = port ?? FreePort.Next();
+        var dir = Directory.CreateTempSubdirectory("lw-mosquitto-").FullName;
+        var conf = Path.Combine(dir, "mosquitto.conf");
+        await File.WriteAllTextAsync(conf, $"""
+            listener {p} 127.0.0.1
+            allow_anonymous true
+            persistence true
+            persistence_location {dir}/
+            max_queued_messages 1000000
+            {extraConfig}
+            """);
+        var psi = new ProcessStartInfo(Binary, ["-c", conf]) { RedirectStandardError = true, RedirectStandardOutput = true, UseShellExecute = false };
+        var process = Process.Start(psi) ?? throw new InvalidOperationException("mosquitto did not start");
+        process.BeginErrorReadLine();
+        process.BeginOutputReadLine();
+        var broker = new Mosquitto(process, dir, p);
+        await broker.WaitReadyAsync();
+        return broker;
+    }
+
+    /// <summary>Runs a mosquitto client tool (mosquitto_pub) against this broker and waits for it.</summary>
+    public async Task PublishAsync(string topic, string message, int qos = 0)
+    {
+        var psi = new ProcessStartInfo(Tool("mosquitto_pub"), ["-h", "127.0.0.1", "-p", Port.ToString(), "-t", topic, "-m", message, "-q", qos.ToString()])
+        { RedirectStandardError = true, UseShellExecute = false };
+        using var pub = Process.Start(psi)!;
+        var err = await pub.StandardError.ReadToEndAsync();
+        await pub.WaitForExitAsync();
+        if (pub.ExitCode != 0) throw new InvalidOperationException($"mosquitto_pub failed ({pub.ExitCode}): {err}");
+    }
+
+    /// <summary>Kills the broker at once (SIGKILL).</summary>
+    public void Kill()
+    {
+        if (!_process.HasExited) _process.Kill();
+        _process.WaitForExit();
+    }
+
+    private async Task WaitReadyAsync()
+    {
+        var clock = System.Diagnostics.Stopwatch.StartNew();
+        while (clock.Elapsed < TimeSpan.FromSeconds(10))
+        {
+            if (_process.HasExited) throw new InvalidOperationException($"mosquitto exited with {_process.ExitCode}");
+            try
+            {
+                using var c = new TcpClient();
+                await c.ConnectAsync("127.0.0.1", Port);
+                return;
+            }
+            catch (SocketException) { await Task.Delay(50); }
+        }
+        throw new TimeoutException("mosquitto did not accept connections within 10 s");
+    }
+
+    private static string? Which(string name) =>
+        (Environment.GetEnvironmentVariable("PATH") ?? "").Split(':').Append("/usr/sbin").Append("/usr/bin")
+        .Select(d => Path.Combine(d, name)).FirstOrDefault(File.Exists);
+
+    public async ValueTask DisposeAsync()
+    {
+        Kill();
+        _process.Dispose();
+        await Task.Yield();
+        try { Directory.Delete(_dir, true); } catch (IOException) { }
+    }
+}

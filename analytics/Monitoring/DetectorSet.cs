@@ -1,4 +1,6 @@
 using LoopWatch.Analytics.Configuration;
+using LoopWatch.Analytics.Offset;
+using LoopWatch.Analytics.Oscillation;
 
 namespace LoopWatch.Analytics.Monitoring;
 
@@ -9,6 +11,12 @@ public static class DetectorSet
     public static IReadOnlyList<LoopDetector> For(LoopSpec spec)
     {
         var list = new List<LoopDetector>();
+        if (spec.Kind == LoopKind.Pid)
+        {
+            // Oscillation first: the offset detector reads its finding from the board in the same sample.
+            list.Add(new OscillationDetector(spec));
+            list.Add(new OffsetDetector(spec));
+        }
         return list;
     }
 }

@@ -3,7 +3,7 @@ using LoopWatch.Storage.Rows;
 namespace LoopWatch.Storage.Tests.Support;
 
 /// <summary>Sample rows for a fictional plant (loop ids like FIC-101 on unit "North Mill").</summary>
-public static class Rows
+public static class SampleRows
 {
     public const long Hour = 3_600_000;
     public static readonly long T0 = new DateTimeOffset(2026, 3, 2, 0, 0, 0, TimeSpan.Zero).ToUnixTimeMilliseconds();

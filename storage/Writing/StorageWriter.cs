@@ -22,6 +22,8 @@ public sealed class StorageWriter : IAsyncDisposable
     private readonly List<StorageCommand> _backlog = [];
     private readonly List<TaskCompletionSource> _waitingFlushes = [];
     private readonly CancellationTokenSource _stop = new();
+    private readonly TaskCompletionSource _completing = new(TaskCreationOptions.RunContinuationsAsynchronously);
+    private bool _completionRetried;
     private readonly Task _run;
     private SqliteConnection? _connection;
     private long _queued, _written, _dropped, _batches, _failed, _lastBatchTicks;
@@ -102,6 +104,7 @@ public sealed class StorageWriter : IAsyncDisposable
     public async Task CompleteAsync(CancellationToken cancellationToken = default)
     {
         _queue.Writer.TryComplete();
+        _completing.TrySetResult();
         using (cancellationToken.Register(static s => ((CancellationTokenSource)s!).Cancel(), _stop))
             await _run.ConfigureAwait(false);
     }
@@ -145,7 +148,7 @@ public sealed class StorageWriter : IAsyncDisposable
                     delay = _options.RetryFirstDelay;
                     continue;
                 }
-                await Task.Delay(delay, _time, _stop.Token).ConfigureAwait(false);
+                await WaitBeforeRetryAsync(delay).ConfigureAwait(false);
                 delay = TimeSpan.FromTicks(Math.Min(delay.Ticks * 2, _options.RetryMaxDelay.Ticks));
             }
             ReleaseFlushes();
@@ -167,6 +170,27 @@ public sealed class StorageWriter : IAsyncDisposable
         {
             _connection?.Dispose();
             _connection = null;
+        }
+    }
+
+    // Completion cuts one retry wait short so shutdown tries at once instead of sitting out the backoff.
+    private async Task WaitBeforeRetryAsync(TimeSpan delay)
+    {
+        if (_completionRetried)
+        {
+            await Task.Delay(delay, _time, _stop.Token).ConfigureAwait(false);
+            return;
+        }
+        using var cancelDelay = CancellationTokenSource.CreateLinkedTokenSource(_stop.Token);
+        var waited = Task.Delay(delay, _time, cancelDelay.Token);
+        if (await Task.WhenAny(waited, _completing.Task).ConfigureAwait(false) == _completing.Task)
+        {
+            _completionRetried = true;
+            cancelDelay.Cancel();
+        }
+        else
+        {
+            await waited.ConfigureAwait(false); // observes cancellation by _stop
         }
     }
 

@@ -80,7 +80,7 @@ public sealed class StorageWriterTests : IDisposable
     {
         using var db = LoopWatchDatabase.Open(_temp.Options());
         await using var writer = new StorageWriter(db);
-        var reader = new Reading.StorageReader(db);
+        var reader = new LoopWatch.Storage.Reading.StorageReader(db);
 
         writer.Post(SampleRows.Hourly("PIC-400", SampleRows.T0, samples: 10));
         writer.Post(SampleRows.Hourly("PIC-400", SampleRows.T0, samples: 3600) with { PvMean = null });

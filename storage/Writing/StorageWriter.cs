@@ -21,6 +21,7 @@ public sealed class StorageWriter : IAsyncDisposable
     private readonly Channel<StorageCommand> _queue;
     private readonly List<StorageCommand> _backlog = [];
     private readonly List<TaskCompletionSource> _waitingFlushes = [];
+    private readonly List<object> _sameStatement = [];
     private readonly CancellationTokenSource _stop = new();
     private readonly TaskCompletionSource _completing = new(TaskCreationOptions.RunContinuationsAsynchronously);
     private bool _completionRetried;
@@ -260,10 +261,14 @@ public sealed class StorageWriter : IAsyncDisposable
         var connection = _connection ??= _database.OpenConnection();
         using (var tx = connection.BeginTransaction())
         {
-            for (var i = start; i < start + count; i++)
+            // Runs of the same statement go through Dapper's multi-exec, which reuses one prepared command.
+            var end = start + count;
+            for (var i = start; i < end;)
             {
-                var command = _backlog[i];
-                connection.Execute(command.Sql!, command.Row, tx);
+                var sql = _backlog[i].Sql!;
+                _sameStatement.Clear();
+                for (; i < end && ReferenceEquals(_backlog[i].Sql, sql); i++) _sameStatement.Add(_backlog[i].Row!);
+                connection.Execute(sql, _sameStatement, tx);
             }
             tx.Commit();
         }

@@ -27,8 +27,8 @@ public sealed class StorageWriter : IAsyncDisposable
     private bool _completionRetried;
     private readonly Task _run;
     private SqliteConnection? _connection;
-    private long _queued, _written, _dropped, _batches, _failed, _lastBatchTicks;
-    private int _backlogCount;
+    private long _queued, _written, _dropped, _rejected, _batches, _failed, _lastBatchTicks;
+    private int _backlogCount, _disposed;
     private volatile string? _lastError;
     private volatile StorageFault? _fault;
 
@@ -59,6 +59,7 @@ public sealed class StorageWriter : IAsyncDisposable
             var backlog = Volatile.Read(ref _backlogCount);
             return new(
                 Interlocked.Read(ref _queued), Interlocked.Read(ref _written), Interlocked.Read(ref _dropped),
+                Interlocked.Read(ref _rejected),
                 backlog + _queue.Reader.Count, backlog, Interlocked.Read(ref _batches), Interlocked.Read(ref _failed),
                 _lastError, TimeSpan.FromTicks(Interlocked.Read(ref _lastBatchTicks)));
         }
@@ -113,6 +114,7 @@ public sealed class StorageWriter : IAsyncDisposable
     /// <summary>Completes the writer, giving a faulted backlog <see cref="StorageOptions.ShutdownTimeout"/> to get through.</summary>
     public async ValueTask DisposeAsync()
     {
+        if (Interlocked.Exchange(ref _disposed, 1) == 1) return;
         using (var timeout = new CancellationTokenSource(_options.ShutdownTimeout, _time))
             await CompleteAsync(timeout.Token).ConfigureAwait(false);
         _stop.Dispose();
@@ -259,21 +261,59 @@ public sealed class StorageWriter : IAsyncDisposable
     {
         var began = _time.GetTimestamp();
         var connection = _connection ??= _database.OpenConnection();
-        using (var tx = connection.BeginTransaction())
+        try
         {
-            // Runs of the same statement go through Dapper's multi-exec, which reuses one prepared command.
-            var end = start + count;
-            for (var i = start; i < end;)
-            {
-                var sql = _backlog[i].Sql!;
-                _sameStatement.Clear();
-                for (; i < end && ReferenceEquals(_backlog[i].Sql, sql); i++) _sameStatement.Add(_backlog[i].Row!);
-                connection.Execute(sql, _sameStatement, tx);
-            }
-            tx.Commit();
+            WriteRuns(connection, start, count);
+        }
+        catch (Exception exception) when (BadRow.IsRowError(exception))
+        {
+            // One bad row must not hold up the rest for ever: redo the batch row by row and leave out the bad ones.
+            WriteOneByOne(connection, start, count);
         }
         Interlocked.Add(ref _written, count);
         Interlocked.Increment(ref _batches);
         Interlocked.Exchange(ref _lastBatchTicks, _time.GetElapsedTime(began).Ticks);
+    }
+
+    private void WriteRuns(SqliteConnection connection, int start, int count)
+    {
+        using var tx = connection.BeginTransaction();
+        // Runs of the same statement go through Dapper's multi-exec, which reuses one prepared command.
+        var end = start + count;
+        for (var i = start; i < end;)
+        {
+            var sql = _backlog[i].Sql!;
+            _sameStatement.Clear();
+            for (; i < end && ReferenceEquals(_backlog[i].Sql, sql); i++) _sameStatement.Add(_backlog[i].Row!);
+            connection.Execute(sql, _sameStatement, tx);
+        }
+        tx.Commit();
+    }
+
+    private void WriteOneByOne(SqliteConnection connection, int start, int count)
+    {
+        using var tx = connection.BeginTransaction();
+        var rejected = 0;
+        for (var i = start; i < start + count; i++)
+        {
+            var command = _backlog[i];
+            tx.Save("row");
+            try
+            {
+                connection.Execute(command.Sql!, command.Row, tx);
+                tx.Release("row");
+            }
+            catch (Exception exception) when (BadRow.IsRowError(exception))
+            {
+                tx.Rollback("row");
+                tx.Release("row");
+                rejected++;
+                _lastError = exception.Message;
+                StorageWriterLog.RowRejected(_logger, command.Row?.GetType().Name ?? "?", exception.Message);
+            }
+        }
+        tx.Commit();
+        Interlocked.Add(ref _rejected, rejected);
+        Interlocked.Add(ref _written, -rejected); // WriteBatch adds the whole count
     }
 }

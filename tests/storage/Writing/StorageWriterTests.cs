@@ -127,4 +127,24 @@ public sealed class StorageWriterTests : IDisposable
         Assert.Equal(1, writer.Counters.Written);
         await writer.DisposeAsync();
     }
+
+    [Fact]
+    public async Task Post_RowViolatingNotNull_IsRejectedAloneAndTheRestIsWritten()
+    {
+        using var db = LoopWatchDatabase.Open(_temp.Options());
+        await using var writer = new StorageWriter(db);
+
+        for (var i = 0; i < 10; i++) writer.Post(SampleRows.Journal(i));
+        writer.Post(SampleRows.Journal(10) with { LoopId = null! }); // alarm_journal.loop_id is NOT NULL
+        for (var i = 11; i < 20; i++) writer.Post(SampleRows.Journal(i));
+        await writer.FlushAsync();
+
+        Assert.Null(writer.Fault);
+        Assert.Equal(1, writer.Counters.Rejected);
+        Assert.Equal(19, writer.Counters.Written);
+        Assert.Contains("NOT NULL", writer.Counters.LastError);
+        using var raw = _temp.OpenRaw();
+        Assert.Equal(19, raw.ExecuteScalar<long>("SELECT count(*) FROM alarm_journal"));
+        Assert.Equal(0, raw.ExecuteScalar<long>("SELECT count(*) FROM alarm_journal WHERE time_ms = @T", new { T = SampleRows.T0 + 10 }));
+    }
 }

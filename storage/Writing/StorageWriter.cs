@@ -1,7 +1,5 @@
 using System.Threading.Channels;
-using Dapper;
 using LoopWatch.Storage.Rows;
-using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Logging.Abstractions;
 
@@ -14,19 +12,17 @@ namespace LoopWatch.Storage.Writing;
 /// </summary>
 public sealed class StorageWriter : IAsyncDisposable
 {
-    private readonly LoopWatchDatabase _database;
     private readonly StorageOptions _options;
     private readonly TimeProvider _time;
     private readonly ILogger _logger;
     private readonly Channel<StorageCommand> _queue;
     private readonly List<StorageCommand> _backlog = [];
     private readonly List<TaskCompletionSource> _waitingFlushes = [];
-    private readonly List<object> _sameStatement = [];
     private readonly CancellationTokenSource _stop = new();
     private readonly TaskCompletionSource _completing = new(TaskCreationOptions.RunContinuationsAsynchronously);
     private bool _completionRetried;
     private readonly Task _run;
-    private SqliteConnection? _connection;
+    private readonly BatchCommitter _committer;
     private long _queued, _written, _dropped, _rejected, _batches, _failed, _lastBatchTicks;
     private int _backlogCount, _disposed;
     private volatile string? _lastError;
@@ -35,10 +31,11 @@ public sealed class StorageWriter : IAsyncDisposable
     /// <summary>Starts the writer task on <paramref name="database"/> with its options.</summary>
     public StorageWriter(LoopWatchDatabase database, TimeProvider? time = null, ILogger<StorageWriter>? logger = null)
     {
-        _database = database ?? throw new ArgumentNullException(nameof(database));
+        ArgumentNullException.ThrowIfNull(database);
         _options = database.Options;
         _time = time ?? TimeProvider.System;
         _logger = logger ?? (ILogger)NullLogger.Instance;
+        _committer = new BatchCommitter(database, _logger);
         _queue = Channel.CreateBounded<StorageCommand>(new BoundedChannelOptions(_options.WriteQueueCapacity)
         {
             FullMode = BoundedChannelFullMode.Wait, // makes TryWrite refuse when full, so posts never block
@@ -171,8 +168,7 @@ public sealed class StorageWriter : IAsyncDisposable
         }
         finally
         {
-            _connection?.Dispose();
-            _connection = null;
+            _committer.Dispose();
         }
     }
 
@@ -242,8 +238,7 @@ public sealed class StorageWriter : IAsyncDisposable
             Interlocked.Increment(ref _failed);
             _lastError = exception.Message;
             // A broken connection may be the cause; the next attempt opens a fresh one.
-            _connection?.Dispose();
-            _connection = null;
+            _committer.Reset();
             if (_fault is null)
             {
                 _fault = new StorageFault(exception.Message, _time.GetUtcNow());
@@ -260,60 +255,14 @@ public sealed class StorageWriter : IAsyncDisposable
     private void WriteBatch(int start, int count)
     {
         var began = _time.GetTimestamp();
-        var connection = _connection ??= _database.OpenConnection();
-        try
+        var rejected = _committer.Commit(_backlog, start, count);
+        if (rejected > 0)
         {
-            WriteRuns(connection, start, count);
+            Interlocked.Add(ref _rejected, rejected);
+            _lastError = _committer.LastRejection;
         }
-        catch (Exception exception) when (BadRow.IsRowError(exception))
-        {
-            // One bad row must not hold up the rest for ever: redo the batch row by row and leave out the bad ones.
-            WriteOneByOne(connection, start, count);
-        }
-        Interlocked.Add(ref _written, count);
+        Interlocked.Add(ref _written, count - rejected);
         Interlocked.Increment(ref _batches);
         Interlocked.Exchange(ref _lastBatchTicks, _time.GetElapsedTime(began).Ticks);
-    }
-
-    private void WriteRuns(SqliteConnection connection, int start, int count)
-    {
-        using var tx = connection.BeginTransaction();
-        // Runs of the same statement go through Dapper's multi-exec, which reuses one prepared command.
-        var end = start + count;
-        for (var i = start; i < end;)
-        {
-            var sql = _backlog[i].Sql!;
-            _sameStatement.Clear();
-            for (; i < end && ReferenceEquals(_backlog[i].Sql, sql); i++) _sameStatement.Add(_backlog[i].Row!);
-            connection.Execute(sql, _sameStatement, tx);
-        }
-        tx.Commit();
-    }
-
-    private void WriteOneByOne(SqliteConnection connection, int start, int count)
-    {
-        using var tx = connection.BeginTransaction();
-        var rejected = 0;
-        for (var i = start; i < start + count; i++)
-        {
-            var command = _backlog[i];
-            tx.Save("row");
-            try
-            {
-                connection.Execute(command.Sql!, command.Row, tx);
-                tx.Release("row");
-            }
-            catch (Exception exception) when (BadRow.IsRowError(exception))
-            {
-                tx.Rollback("row");
-                tx.Release("row");
-                rejected++;
-                _lastError = exception.Message;
-                StorageWriterLog.RowRejected(_logger, command.Row?.GetType().Name ?? "?", exception.Message);
-            }
-        }
-        tx.Commit();
-        Interlocked.Add(ref _rejected, rejected);
-        Interlocked.Add(ref _written, -rejected); // WriteBatch adds the whole count
     }
 }

@@ -20,7 +20,8 @@ public sealed class StorageWriterFaultTests : IDisposable
         var log = new RecordingLogger<StorageWriter>();
         await using var writer = new StorageWriter(db, clock, log);
         using var locker = _temp.OpenRaw();
-        // SQLite docs, "BEGIN TRANSACTION": EXCLUSIVE takes the write lock at once; in WAL mode other writers get SQLITE_BUSY.
+        // SQLite docs, "BEGIN TRANSACTION" (from memory): EXCLUSIVE takes the write lock at once and in WAL mode acts like
+        // IMMEDIATE, so readers go on while other writers get SQLITE_BUSY ("database is locked").
         locker.Execute("BEGIN EXCLUSIVE");
 
         for (var i = 0; i < 100; i++) writer.Post(SampleRows.Journal(i, "FIC-120"));

@@ -57,7 +57,7 @@ public sealed class OverviewPageTests
 
         await page.GotoAsync(agent.Http.BaseAddress + "loop?id=" + Uri.EscapeDataString(hostile.Id));
         Assert.Contains(hostile.Id, await page.Locator("h1").InnerTextAsync());
-        var svgText = await page.Locator("svg.trend text").AllInnerTextsAsync();
+        var svgText = await page.Locator("svg.trend text").AllTextContentsAsync();
         Assert.Contains("<u>m3/h</u>", svgText); // the unit label in the SVG stays text
         Assert.Equal(0, await page.Locator("svg.trend u").CountAsync());
         Assert.Equal(0, dialogs);

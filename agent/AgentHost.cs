@@ -56,7 +56,7 @@ public static class AgentHost
             services.AddSingleton(new DemoPlant());
             services.AddHostedService<PlantPublisher>();
         }
-        services.AddLoopWatchDashboard();
+        services.AddLoopWatchDashboard(new Dashboard.Access.DashboardAccess(opts.Dashboard.RequireLoginToView), Path.Combine(Path.GetFullPath(opts.DataDir), "keys"));
 
         var app = builder.Build();
         app.MapLoopWatchDashboard();

@@ -22,6 +22,7 @@ public static class DashboardSetup
         app.MapGet("/assets/site.css", () => Results.Text(Asset("site.css"), "text/css"));
         app.MapRazorPages();
         LoopApi.Map(app);
+        AlarmApi.Map(app);
         return app;
     }
 

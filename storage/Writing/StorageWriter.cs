@@ -1,7 +1,5 @@
 using System.Threading.Channels;
-using Dapper;
 using LoopWatch.Storage.Rows;
-using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Logging.Abstractions;
 
@@ -14,31 +12,30 @@ namespace LoopWatch.Storage.Writing;
 /// </summary>
 public sealed class StorageWriter : IAsyncDisposable
 {
-    private readonly LoopWatchDatabase _database;
     private readonly StorageOptions _options;
     private readonly TimeProvider _time;
     private readonly ILogger _logger;
     private readonly Channel<StorageCommand> _queue;
     private readonly List<StorageCommand> _backlog = [];
     private readonly List<TaskCompletionSource> _waitingFlushes = [];
-    private readonly List<object> _sameStatement = [];
     private readonly CancellationTokenSource _stop = new();
     private readonly TaskCompletionSource _completing = new(TaskCreationOptions.RunContinuationsAsynchronously);
     private bool _completionRetried;
     private readonly Task _run;
-    private SqliteConnection? _connection;
-    private long _queued, _written, _dropped, _batches, _failed, _lastBatchTicks;
-    private int _backlogCount;
+    private readonly BatchCommitter _committer;
+    private long _queued, _written, _dropped, _rejected, _batches, _failed, _lastBatchTicks;
+    private int _backlogCount, _disposed;
     private volatile string? _lastError;
     private volatile StorageFault? _fault;
 
     /// <summary>Starts the writer task on <paramref name="database"/> with its options.</summary>
     public StorageWriter(LoopWatchDatabase database, TimeProvider? time = null, ILogger<StorageWriter>? logger = null)
     {
-        _database = database ?? throw new ArgumentNullException(nameof(database));
+        ArgumentNullException.ThrowIfNull(database);
         _options = database.Options;
         _time = time ?? TimeProvider.System;
         _logger = logger ?? (ILogger)NullLogger.Instance;
+        _committer = new BatchCommitter(database, _logger);
         _queue = Channel.CreateBounded<StorageCommand>(new BoundedChannelOptions(_options.WriteQueueCapacity)
         {
             FullMode = BoundedChannelFullMode.Wait, // makes TryWrite refuse when full, so posts never block
@@ -59,6 +56,7 @@ public sealed class StorageWriter : IAsyncDisposable
             var backlog = Volatile.Read(ref _backlogCount);
             return new(
                 Interlocked.Read(ref _queued), Interlocked.Read(ref _written), Interlocked.Read(ref _dropped),
+                Interlocked.Read(ref _rejected),
                 backlog + _queue.Reader.Count, backlog, Interlocked.Read(ref _batches), Interlocked.Read(ref _failed),
                 _lastError, TimeSpan.FromTicks(Interlocked.Read(ref _lastBatchTicks)));
         }
@@ -113,6 +111,7 @@ public sealed class StorageWriter : IAsyncDisposable
     /// <summary>Completes the writer, giving a faulted backlog <see cref="StorageOptions.ShutdownTimeout"/> to get through.</summary>
     public async ValueTask DisposeAsync()
     {
+        if (Interlocked.Exchange(ref _disposed, 1) == 1) return;
         using (var timeout = new CancellationTokenSource(_options.ShutdownTimeout, _time))
             await CompleteAsync(timeout.Token).ConfigureAwait(false);
         _stop.Dispose();
@@ -169,8 +168,7 @@ public sealed class StorageWriter : IAsyncDisposable
         }
         finally
         {
-            _connection?.Dispose();
-            _connection = null;
+            _committer.Dispose();
         }
     }
 
@@ -240,8 +238,7 @@ public sealed class StorageWriter : IAsyncDisposable
             Interlocked.Increment(ref _failed);
             _lastError = exception.Message;
             // A broken connection may be the cause; the next attempt opens a fresh one.
-            _connection?.Dispose();
-            _connection = null;
+            _committer.Reset();
             if (_fault is null)
             {
                 _fault = new StorageFault(exception.Message, _time.GetUtcNow());
@@ -258,21 +255,13 @@ public sealed class StorageWriter : IAsyncDisposable
     private void WriteBatch(int start, int count)
     {
         var began = _time.GetTimestamp();
-        var connection = _connection ??= _database.OpenConnection();
-        using (var tx = connection.BeginTransaction())
+        var rejected = _committer.Commit(_backlog, start, count);
+        if (rejected > 0)
         {
-            // Runs of the same statement go through Dapper's multi-exec, which reuses one prepared command.
-            var end = start + count;
-            for (var i = start; i < end;)
-            {
-                var sql = _backlog[i].Sql!;
-                _sameStatement.Clear();
-                for (; i < end && ReferenceEquals(_backlog[i].Sql, sql); i++) _sameStatement.Add(_backlog[i].Row!);
-                connection.Execute(sql, _sameStatement, tx);
-            }
-            tx.Commit();
+            Interlocked.Add(ref _rejected, rejected);
+            _lastError = _committer.LastRejection;
         }
-        Interlocked.Add(ref _written, count);
+        Interlocked.Add(ref _written, count - rejected);
         Interlocked.Increment(ref _batches);
         Interlocked.Exchange(ref _lastBatchTicks, _time.GetElapsedTime(began).Ticks);
     }

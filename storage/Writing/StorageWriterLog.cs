@@ -24,4 +24,8 @@ internal static partial class StorageWriterLog
     [LoggerMessage(EventId = 2005, Level = LogLevel.Error,
         Message = "Storage writer stopped with {Lost} commands unwritten")]
     public static partial void LostOnShutdown(ILogger logger, long lost);
+
+    [LoggerMessage(EventId = 2006, Level = LogLevel.Error,
+        Message = "Storage rejected a {RowType} for its values, left out of the batch: {Error}")]
+    public static partial void RowRejected(ILogger logger, string rowType, string error);
 }

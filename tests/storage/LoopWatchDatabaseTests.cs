@@ -22,6 +22,7 @@ public sealed class LoopWatchDatabaseTests : IDisposable
         // SQLite docs, PRAGMA synchronous: 1 is NORMAL.
         Assert.Equal(1, c.ExecuteScalar<int>("PRAGMA synchronous"));
         Assert.Equal(1, c.ExecuteScalar<int>("PRAGMA foreign_keys"));
+        // SQLite docs, PRAGMA busy_timeout: reads back the handler's timeout in milliseconds.
         Assert.Equal(3000, c.ExecuteScalar<int>("PRAGMA busy_timeout"));
     }
 
@@ -32,6 +33,7 @@ public sealed class LoopWatchDatabaseTests : IDisposable
         using var c = db.OpenConnection();
         c.Execute("INSERT INTO alarm_journal (time_ms, loop_id, kind, priority, from_state, to_state) VALUES (1, 'TIC-301', 'stale', 'low', 'normal', 'unacked')");
 
+        // Common practice, no source: alarm history is an audit record; corrections are new rows, never edits.
         var error = Assert.ThrowsAny<Exception>(() => c.Execute("UPDATE alarm_journal SET to_state = 'normal'"));
 
         Assert.Contains("append-only", error.Message);

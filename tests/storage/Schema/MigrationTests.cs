@@ -98,4 +98,22 @@ public sealed class MigrationTests : IDisposable
         Migration[] gap = [new(1, "a", "SELECT 1"), new(3, "c", "SELECT 1")];
         Assert.Throws<ArgumentException>(() => LoopWatchDatabase.Open(_temp.Options(), gap, TimeProvider.System));
     }
+
+    [Fact]
+    public async Task Open_RealV1WithRowsThenV2AddingAColumn_KeepsJournalRows()
+    {
+        using (var v1 = LoopWatchDatabase.Open(_temp.Options()))
+        await using (var writer = new Storage.Writing.StorageWriter(v1))
+            for (var i = 0; i < 50; i++) writer.Post(SampleRows.Journal(i));
+        var v2 = SchemaMigrations.All
+            .Append(new Migration(SchemaMigrations.Latest + 1, "journal source", "ALTER TABLE alarm_journal ADD COLUMN source TEXT"))
+            .ToArray();
+
+        using var upgraded = LoopWatchDatabase.Open(_temp.Options(), v2, TimeProvider.System);
+
+        Assert.Equal(v2[^1].Version, upgraded.SchemaVersion);
+        using var raw = _temp.OpenRaw();
+        Assert.Equal(50, raw.ExecuteScalar<int>("SELECT count(*) FROM alarm_journal WHERE source IS NULL"));
+        Assert.Equal(0, raw.ExecuteScalar<int>("SELECT count(*) FROM alarm_journal WHERE figures IS NULL"));
+    }
 }

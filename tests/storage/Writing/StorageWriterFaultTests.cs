@@ -1,6 +1,7 @@
 using Dapper;
 using LoopWatch.Storage.Tests.Support;
 using LoopWatch.Storage.Writing;
+using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Time.Testing;
 
 namespace LoopWatch.Storage.Tests.Writing;
@@ -16,9 +17,11 @@ public sealed class StorageWriterFaultTests : IDisposable
     {
         using var db = LoopWatchDatabase.Open(_temp.Options(o => o with { BusyTimeout = TimeSpan.FromSeconds(1) }));
         var clock = new FakeTimeProvider(new DateTimeOffset(2026, 3, 2, 6, 0, 0, TimeSpan.Zero));
-        await using var writer = new StorageWriter(db, clock);
+        var log = new RecordingLogger<StorageWriter>();
+        await using var writer = new StorageWriter(db, clock, log);
         using var locker = _temp.OpenRaw();
-        // SQLite docs, "BEGIN TRANSACTION": EXCLUSIVE takes the write lock at once; in WAL mode other writers get SQLITE_BUSY.
+        // SQLite docs, "BEGIN TRANSACTION" (from memory): EXCLUSIVE takes the write lock at once and in WAL mode acts like
+        // IMMEDIATE, so readers go on while other writers get SQLITE_BUSY ("database is locked").
         locker.Execute("BEGIN EXCLUSIVE");
 
         for (var i = 0; i < 100; i++) writer.Post(SampleRows.Journal(i, "FIC-120"));
@@ -52,6 +55,10 @@ public sealed class StorageWriterFaultTests : IDisposable
         using var raw = _temp.OpenRaw();
         Assert.Equal(150, raw.ExecuteScalar<long>("SELECT count(*) FROM alarm_journal WHERE loop_id = 'FIC-120'"));
         Assert.Equal("ok", raw.ExecuteScalar<string>("PRAGMA integrity_check"));
+        // One error when the fault starts (2001), quieter retries (2002), one note on recovery (2003).
+        Assert.Equal(1, log.Entries.Count(e => e.EventId == 2001 && e.Level == LogLevel.Error));
+        Assert.Contains(log.Entries, e => e.EventId == 2002);
+        Assert.Equal(1, log.Entries.Count(e => e.EventId == 2003));
     }
 
     [Fact]
@@ -62,7 +69,8 @@ public sealed class StorageWriterFaultTests : IDisposable
             BusyTimeout = TimeSpan.FromSeconds(1), ShutdownTimeout = TimeSpan.FromSeconds(10),
         }));
         var clock = new FakeTimeProvider();
-        var writer = new StorageWriter(db, clock);
+        var log = new RecordingLogger<StorageWriter>();
+        var writer = new StorageWriter(db, clock, log);
         using var locker = _temp.OpenRaw();
         locker.Execute("BEGIN EXCLUSIVE");
         for (var i = 0; i < 20; i++) writer.Post(SampleRows.Journal(i));
@@ -75,6 +83,7 @@ public sealed class StorageWriterFaultTests : IDisposable
         await disposing;
         Assert.Equal(20, writer.Counters.Dropped);
         Assert.Equal(0, writer.Counters.Written);
+        Assert.Contains(log.Entries, e => e.EventId == 2005 && e.Message.Contains("20"));
         locker.Execute("ROLLBACK");
     }
 }

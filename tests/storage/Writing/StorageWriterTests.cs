@@ -95,4 +95,56 @@ public sealed class StorageWriterTests : IDisposable
         var state = Assert.Single(await reader.ReadAlarmStatesAsync());
         Assert.Equal(new AlarmStateRow("PIC-400", "oscillation", "shelved", "high", SampleRows.T0, "op1", SampleRows.T0 + 8 * SampleRows.Hour, "op1", "valve work", SampleRows.T0 + 5), state);
     }
+
+    [Fact]
+    public async Task Post_FromManyThreadsAtOnce_EveryRowWrittenOnce()
+    {
+        using var db = LoopWatchDatabase.Open(_temp.Options());
+        await using var writer = new StorageWriter(db);
+
+        await Task.WhenAll(Enumerable.Range(0, 8).Select(t => Task.Run(() =>
+        {
+            for (var i = 0; i < 2_000; i++) Assert.True(writer.Post(SampleRows.Journal(t * 10_000 + i, $"TIC-{300 + t}")));
+        })));
+        await writer.FlushAsync();
+
+        using var raw = _temp.OpenRaw();
+        Assert.Equal(16_000, raw.ExecuteScalar<long>("SELECT count(DISTINCT time_ms) FROM alarm_journal"));
+        Assert.Equal(8, raw.ExecuteScalar<long>("SELECT count(DISTINCT loop_id) FROM alarm_journal"));
+        Assert.Equal(16_000, writer.Counters.Written);
+    }
+
+    [Fact]
+    public async Task FlushAsync_AfterComplete_ReturnsWithoutWaiting()
+    {
+        using var db = LoopWatchDatabase.Open(_temp.Options());
+        var writer = new StorageWriter(db);
+        writer.Post(SampleRows.Journal(1));
+        await writer.CompleteAsync();
+
+        await writer.FlushAsync();
+
+        Assert.Equal(1, writer.Counters.Written);
+        await writer.DisposeAsync();
+    }
+
+    [Fact]
+    public async Task Post_RowViolatingNotNull_IsRejectedAloneAndTheRestIsWritten()
+    {
+        using var db = LoopWatchDatabase.Open(_temp.Options());
+        await using var writer = new StorageWriter(db);
+
+        for (var i = 0; i < 10; i++) writer.Post(SampleRows.Journal(i));
+        writer.Post(SampleRows.Journal(10) with { LoopId = null! }); // alarm_journal.loop_id is NOT NULL
+        for (var i = 11; i < 20; i++) writer.Post(SampleRows.Journal(i));
+        await writer.FlushAsync();
+
+        Assert.Null(writer.Fault);
+        Assert.Equal(1, writer.Counters.Rejected);
+        Assert.Equal(19, writer.Counters.Written);
+        Assert.Contains("NOT NULL", writer.Counters.LastError);
+        using var raw = _temp.OpenRaw();
+        Assert.Equal(19, raw.ExecuteScalar<long>("SELECT count(*) FROM alarm_journal"));
+        Assert.Equal(0, raw.ExecuteScalar<long>("SELECT count(*) FROM alarm_journal WHERE time_ms = @T", new { T = SampleRows.T0 + 10 }));
+    }
 }

@@ -53,6 +53,9 @@ public static class AgentHost
             RetentionDays = opts.AlarmSystem.RetentionDays,
         });
         services.AddSingleton<AgentStorage>();
+        // Others (user store, reports) resolve the open database and reader; AgentStorage owns and closes them.
+        services.AddSingleton(sp => sp.GetRequiredService<AgentStorage>().Database);
+        services.AddSingleton(sp => sp.GetRequiredService<AgentStorage>().Reader);
         services.AddSingleton<AlarmJournal>();
         services.AddSingleton(sp => new AlarmEngine(setup.Specs, [sp.GetRequiredService<AlarmJournal>()]));
         services.AddSingleton(sp =>

@@ -66,6 +66,7 @@ public static class DashboardSetup
         app.MapGet("/assets/site.css", () => Results.Text(Css.Value, "text/css")).AllowAnonymous();
         app.MapRazorPages();
         LoopApi.Map(app);
+        AlarmApi.Map(app);
         return app;
     }
 

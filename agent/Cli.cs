@@ -13,10 +13,11 @@ public static class Cli
           loopwatch demo  [--speed N] [--data-dir DIR] [--config FILE]   simulated plant through the real agent
           loopwatch run   --config FILE [--data-dir DIR]                  watch the loops the configuration names
           loopwatch check --config FILE                                   check a configuration and exit
+          loopwatch user add NAME --role viewer|operator|maintenance|admin [--data-dir DIR]   add a dashboard user
         """;
 
     /// <summary>Runs one verb to completion; 0 ok, 1 runtime failure, 2 usage or configuration error.</summary>
-    public static async Task<int> RunAsync(string[] args, TextWriter stdout, TextWriter stderr, CancellationToken stop = default)
+    public static async Task<int> RunAsync(string[] args, TextWriter stdout, TextWriter stderr, CancellationToken stop = default, TextReader? stdin = null)
     {
         if (args.Length == 0 || args[0] is "-h" or "--help" or "help") { stdout.WriteLine(Usage); return args.Length == 0 ? 2 : 0; }
         var errors = new List<string>();
@@ -28,6 +29,8 @@ public static class Cli
             case "run":
             case "check":
                 return await RunAgentAsync(verb, cli, errors, stdout, stderr, stop);
+            case "user":
+                return await UserVerb.RunAsync(cli, errors, stdin ?? Console.In, stdout, stderr);
             default:
                 stderr.WriteLine($"loopwatch: unknown verb '{verb}'");
                 stderr.WriteLine(Usage);

@@ -8,7 +8,8 @@ namespace LoopWatch.Analytics.OnOff;
 /// <summary>
 /// On-off loops: cycle period, starts per hour, duty and PV cycle amplitude from the output edges and the PV;
 /// raises <c>short-cycling</c> above <see cref="LoopLimits.MaxStartsPerHour"/>. Figures are reworked once per
-/// complete cycle and once a minute (so a loop that stops cycling ends its finding), never per sample.
+/// complete cycle and once a minute (so a loop that stops cycling ends its finding), never per sample; an active
+/// finding gets new figures only when starts per hour moved more than 5 % from those reported.
 /// </summary>
 public sealed class ShortCyclingDetector : LoopDetector
 {
@@ -17,6 +18,7 @@ public sealed class ShortCyclingDetector : LoopDetector
     private readonly CycleTracker _tracker;
     private long _lastTicks, _minute = long.MinValue;
     private bool _raised;
+    private double _reported;
 
     /// <summary>A detector for <paramref name="spec"/> with <paramref name="options"/> or the defaults.</summary>
     public ShortCyclingDetector(LoopSpec spec, OnOffOptions? options = null)
@@ -67,8 +69,10 @@ public sealed class ShortCyclingDetector : LoopDetector
             _raised = false;
             return;
         }
-        // Raise on any evaluation; update the figures only when a cycle completes, so records stay rare.
-        if (sph <= max || f.Cycles < _options.MinCycles || (_raised && !completed)) return;
+        // Raise on any evaluation; update only on a complete cycle that moved the rate by more than 5 %, so records stay rare.
+        if (sph <= max || f.Cycles < _options.MinCycles) return;
+        if (_raised && (!completed || Math.Abs(sph - _reported) <= 0.05 * _reported)) return;
+        _reported = sph;
         board.Set(new ShortCyclingFinding(new DateTimeOffset(ticks, TimeSpan.Zero), null,
             Math.Round(sph, 1), Math.Round(f.PeriodS ?? 0, 1), Math.Round(f.DutyPct ?? 0, 1),
             Math.Round(f.AmplitudePct ?? 0, 2), max));

@@ -18,6 +18,7 @@ public sealed class SaturationDetector : LoopDetector
     private readonly int[] _good, _auto, _high, _low, _highAuto, _lowAuto;
     private long _current = long.MinValue, _firstMinute = long.MinValue;
     private bool _raised;
+    private double _reported;
 
     /// <summary>A detector for <paramref name="spec"/> with <paramref name="options"/> or the defaults.</summary>
     public SaturationDetector(LoopSpec spec, QualityOptions? options = null)
@@ -91,6 +92,9 @@ public sealed class SaturationDetector : LoopDetector
             return;
         }
         if (pct <= _options.SaturationRaisePct && !_raised) return;
+        // Figures are updated only when the share has moved 5 points from the one reported.
+        if (_raised && Math.Abs(pct - _reported) < 5) return;
+        _reported = pct;
         board.Set(new SaturationFinding(new DateTimeOffset(ticks, TimeSpan.Zero), null, Math.Round(pct), highAuto >= lowAuto ? "high" : "low", window));
         _raised = true;
     }

@@ -16,6 +16,7 @@ public sealed class ReversalDetector : LoopDetector
     private readonly ReversalOptions _options;
     private long _minute = long.MinValue;
     private bool _raised;
+    private double _reported;
 
     /// <summary>A detector for <paramref name="spec"/> with <paramref name="options"/> or the defaults.</summary>
     public ReversalDetector(LoopSpec spec, ReversalOptions? options = null)
@@ -74,7 +75,9 @@ public sealed class ReversalDetector : LoopDetector
             return;
         }
         if (rate <= max) return;
-        // Rounded figures once a minute: the board only reports (and keeps) a record when they change.
+        // Figures are updated only when the rate has moved more than 5 % from the one reported.
+        if (_raised && Math.Abs(rate - _reported) <= 0.05 * _reported) return;
+        _reported = rate;
         board.Set(new ExcessiveReversalsFinding(new DateTimeOffset(ticks, TimeSpan.Zero), null,
             Math.Round(rate), Math.Round(Output.TravelPctPerHour ?? 0), max,
             Position?.ReversalsPerHour is { } pr ? Math.Round(pr) : null,

@@ -16,7 +16,8 @@ public sealed class ShortCyclingDetector : LoopDetector
     private readonly LoopSpec _spec;
     private readonly OnOffOptions _options;
     private readonly CycleTracker _tracker;
-    private long _lastTicks, _minute = long.MinValue;
+    private long _lastTicks, _nextMinuteTicks = long.MinValue;
+    private readonly double _pctScale;
     private bool _raised;
     private double _reported;
 
@@ -25,6 +26,7 @@ public sealed class ShortCyclingDetector : LoopDetector
     {
         _spec = spec;
         _options = options ?? new OnOffOptions();
+        _pctScale = 100.0 / spec.Span;
         _tracker = new CycleTracker(Math.Max(_options.HistoryCycles, 2 * _options.RecentCycles));
     }
 
@@ -41,10 +43,9 @@ public sealed class ShortCyclingDetector : LoopDetector
     public override void Step(in AlignedSample sample, FindingBoard board)
     {
         _lastTicks = sample.Ticks;
-        var completed = _tracker.Step(sample.Ticks, IsOn(sample.Op), _spec.ToPct(sample.Pv), sample.PvGood);
-        var minute = sample.Ticks / TimeSpan.TicksPerMinute;
-        if (!completed && minute == _minute) return;
-        _minute = minute;
+        var completed = _tracker.Step(sample.Ticks, IsOn(sample.Op), (sample.Pv - _spec.PvMin) * _pctScale, sample.PvGood);
+        if (!completed && sample.Ticks < _nextMinuteTicks) return;
+        _nextMinuteTicks = (sample.Ticks / TimeSpan.TicksPerMinute + 1) * TimeSpan.TicksPerMinute;
         Judge(sample.Ticks, completed, board);
     }
 

@@ -16,7 +16,8 @@ public sealed class SaturationDetector : LoopDetector
     private readonly QualityOptions _options;
     private readonly long[] _minute;
     private readonly int[] _good, _auto, _high, _low, _highAuto, _lowAuto;
-    private long _current = long.MinValue, _firstMinute = long.MinValue;
+    private long _current = long.MinValue, _firstMinute = long.MinValue, _minuteEnd = long.MinValue;
+    private int _slot;
     private bool _raised;
     private double _reported;
 
@@ -40,14 +41,17 @@ public sealed class SaturationDetector : LoopDetector
     public override void Step(in AlignedSample sample, FindingBoard board)
     {
         if (!sample.PvGood) return;
-        var minute = sample.Ticks / TimeSpan.TicksPerMinute;
-        if (minute != _current)
+        if (sample.Ticks >= _minuteEnd)
         {
+            // Divisions only at a minute boundary (event time only moves forward).
+            var minute = sample.Ticks / TimeSpan.TicksPerMinute;
+            _minuteEnd = (minute + 1) * TimeSpan.TicksPerMinute;
             if (_firstMinute == long.MinValue) _firstMinute = minute;
             _current = minute;
             Judge(sample.Ticks, board);
+            _slot = Slot(minute);
         }
-        var slot = Slot(minute);
+        var slot = _slot;
         var auto = sample.InAuto;
         _good[slot]++;
         if (auto) _auto[slot]++;
@@ -75,6 +79,7 @@ public sealed class SaturationDetector : LoopDetector
         Array.Fill(_minute, long.MinValue);
         _firstMinute = long.MinValue;
         _current = long.MinValue;
+        _minuteEnd = long.MinValue;
     }
 
     private void Judge(long ticks, FindingBoard board)

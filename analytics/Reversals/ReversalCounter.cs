@@ -17,6 +17,8 @@ public sealed class ReversalCounter
     private double _anchor, _extreme;
     private long _reversals, _sinceTicks, _windowStartTicks = long.MinValue, _lastTicks;
     private double _travel;
+    private long _minuteStart = long.MaxValue, _minuteEnd = long.MinValue;
+    private int _slot;
 
     /// <summary>A counter with a deadband in % of stroke and a rate window of <paramref name="windowMinutes"/> one-minute buckets.</summary>
     public ReversalCounter(double deadbandPct, int windowMinutes = 60, int residueCapacity = 64)
@@ -125,6 +127,8 @@ public sealed class ReversalCounter
         Array.Clear(_bucketReversals);
         Array.Clear(_bucketTravel);
         _windowStartTicks = long.MinValue;
+        _minuteStart = long.MaxValue;
+        _minuteEnd = long.MinValue;
     }
 
     private double? Rate(out long reversals, out double travel)
@@ -145,6 +149,8 @@ public sealed class ReversalCounter
 
     private int Slot(long ticks)
     {
+        // Divisions only once a minute: most samples fall in the bucket of the one before.
+        if (ticks >= _minuteStart && ticks < _minuteEnd) return _slot;
         var minute = ticks / TimeSpan.TicksPerMinute;
         var slot = (int)(minute % _bucketMinute.Length);
         if (_bucketMinute[slot] != minute)
@@ -153,6 +159,9 @@ public sealed class ReversalCounter
             _bucketReversals[slot] = 0;
             _bucketTravel[slot] = 0;
         }
+        _minuteStart = minute * TimeSpan.TicksPerMinute;
+        _minuteEnd = _minuteStart + TimeSpan.TicksPerMinute;
+        _slot = slot;
         return slot;
     }
 }

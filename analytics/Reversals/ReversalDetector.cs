@@ -14,7 +14,7 @@ public sealed class ReversalDetector : LoopDetector
 {
     private readonly LoopSpec _spec;
     private readonly ReversalOptions _options;
-    private long _minute = long.MinValue;
+    private long _nextMinuteTicks = long.MinValue;
     private bool _raised;
     private double _reported;
 
@@ -47,9 +47,8 @@ public sealed class ReversalDetector : LoopDetector
         if (!sample.PvGood) return;
         Output.Step(sample.Ticks, sample.Op);
         Position?.Step(sample.Ticks, sample.Position);
-        var minute = sample.Ticks / TimeSpan.TicksPerMinute;
-        if (minute == _minute) return;
-        _minute = minute;
+        if (sample.Ticks < _nextMinuteTicks) return;
+        _nextMinuteTicks = (sample.Ticks / TimeSpan.TicksPerMinute + 1) * TimeSpan.TicksPerMinute;
         Judge(sample.Ticks, board);
     }
 

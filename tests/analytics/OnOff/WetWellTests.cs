@@ -76,4 +76,27 @@ public sealed class WetWellTests
         Assert.True(detector.Figures.StartsPerHour < rig.Spec.Limits.MaxStartsPerHour);
         Assert.Empty(rig.Raised(FindingKinds.ShortCycling));
     }
+
+    [Fact]
+    public void InflowFalls_ShortCyclingEndsOnceStartsDropBelowTheLimit()
+    {
+        var spec = LoopRig.Define("on-off", "level", min: 0, max: 3);
+        var detector = new ShortCyclingDetector(spec);
+        var rig = new LoopRig(spec, detector);
+        var options = new LoopOptions { Id = "LS-310", Kind = "on-off", Pv = new SignalOptions { Tag = "u3/loop/pv", Min = 0, Max = 3 } };
+        var fast = new SumpModel(options, Area, depth: 3, Stop, Start, PumpRate, PumpRate / 2);
+        var slow = new SumpModel(options, Area, depth: 3, Stop, Start, PumpRate, PumpRate * 0.05);
+        // One hour at Qin = Qp/2 (22.5 starts an hour), then three at Qin = Qp/20 (3600 / (800 + 42) = 4.3 an hour; design rule above).
+        for (long s = 0; s < 4 * 3600; s++)
+        {
+            var sump = s < 3600 ? fast : slow;
+            for (var k = 0; k < 10; k++) sump.Step(s + k * 0.1, 0.1);
+            rig.Feed(s, sump.Reading.Pv, double.NaN, sump.Reading.Op);
+        }
+        Assert.Single(rig.Raised(FindingKinds.ShortCycling));
+        var ended = Assert.Single(rig.Ended(FindingKinds.ShortCycling));
+        Assert.True(ended.End > ended.Start);
+        Assert.False(rig.Monitor.Board.IsActive(FindingKinds.ShortCycling));
+        Assert.InRange(detector.Figures.StartsPerHour!.Value, 4.3 * 0.98, 4.3 * 1.04);
+    }
 }

@@ -22,12 +22,12 @@ public sealed class DemoPlant
             Pid("FIC-101", "Raw water intake flow", "Intake", "flow", 0, 250, "m3/h", false, new PidLoopSetup
             {
                 Kc = 0.5, TiSeconds = 10, TauSeconds = 8, DeadTimeSeconds = 2, SetPointPct = 60,
-                NoiseSigmaPct = 0.3, NoiseFilterSeconds = 5, LoadAmplitudePct = 5, Seed = seed,
+                NoiseSigmaPct = 0.2, NoiseFilterSeconds = 5, LoadAmplitudePct = 5, Seed = seed,
             }),
             Pid("PIC-201", "Clean-water header pressure (proportional-only)", "Distribution", "pressure", 0, 10, "bar", false, new PidLoopSetup
             {
                 Kc = 2, TiSeconds = null, TauSeconds = 20, DeadTimeSeconds = 3, SetPointPct = 55,
-                NoiseSigmaPct = 0.1, NoiseFilterSeconds = 3, LoadSteps = [(900, -9)], Seed = seed + 10,
+                NoiseSigmaPct = 0.03, NoiseFilterSeconds = 3, LoadSteps = [(900, -9)], Seed = seed + 10,
             }, new TuningOptions { PbPct = 50 }),
             new SumpModel(OnOff("LIC-301", "Effluent sump level", "Effluent", "level", 0, 3, "m", withSp: false), area: 3, depth: 3,
                 stopLevel: 1.0, startLevel: 1.4, pumpRate: 0.04, inflow: 0.02, inflowSwing: 0.004, noiseSigma: 0.003, seed: seed + 20),
@@ -35,8 +35,8 @@ public sealed class DemoPlant
                 ambient: 15, rise: 60, tau: 1800, deadTime: 20, low: 58, high: 62, noiseSigma: 0.05, seed: seed + 30),
             Pid("FIC-102", "Filter backwash flow (sticky valve)", "Filtration", "flow", 0, 400, "m3/h", true, new PidLoopSetup
             {
-                Kc = 0.4, TiSeconds = 15, TauSeconds = 6, DeadTimeSeconds = 2, SetPointPct = 45,
-                StictionS = 5, StictionJ = 3, NoiseSigmaPct = 0.1, LoadSteps = [(120, 3)], InputNoiseSigmaPct = 0.2, Seed = seed + 40,
+                Kc = 0.5, TiSeconds = 8, TauSeconds = 5, DeadTimeSeconds = 1, SetPointPct = 45,
+                StictionS = 4, StictionJ = 2, NoiseSigmaPct = 0.05, LoadSteps = [(60, 3)], LoadAmplitudePct = 3, LoadMeanGapSeconds = 300, LoadMeanHoldSeconds = 300, Seed = seed + 40,
             }),
             Pid("TIC-202", "Boiler feedwater preheater outlet temperature", "Boiler house", "temperature", 0, 200, "degC", false, new PidLoopSetup
             {
@@ -57,7 +57,7 @@ public sealed class DemoPlant
             Pid("LIC-105", "Clear-water tank level", "Distribution", "level", 0, 5, "m", false, new PidLoopSetup
             {
                 Kc = 3, TiSeconds = 600, IntegratingAreaPctPerPctS = 0.004, SetPointPct = 60, InitialOpPct = 50,
-                NoiseSigmaPct = 0.2, NoiseFilterSeconds = 5, LoadAmplitudePct = 8, LoadMeanGapSeconds = 1200, Seed = seed + 80,
+                NoiseSigmaPct = 0.03, NoiseFilterSeconds = 5, LoadAmplitudePct = 8, LoadMeanGapSeconds = 1200, Seed = seed + 80,
             }),
         ];
     }

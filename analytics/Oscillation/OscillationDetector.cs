@@ -82,7 +82,9 @@ public sealed class OscillationDetector : LoopDetector
         }
         _wasAuto = true;
         var e = (sample.Sp - sample.Pv) / _spec.Span * 100;
-        if (_counter.Step(ticks, e, UltimatePeriodS) && _counter.LastWasLoad && _counter.Count > _options.LoadLimitCount)
+        // Measurement noise also crosses zero with some IAE: the count alone raises only once the ACF sees a regular period.
+        if (_counter.Step(ticks, e, UltimatePeriodS) && _counter.LastWasLoad && _counter.Count > _options.LoadLimitCount
+            && LastAcf.Regularity > _options.RegularityLimit)
         {
             _lastEvidenceTicks = ticks;
             if (!_active) Raise(board, ticks);

@@ -30,7 +30,11 @@ public sealed class AlarmsModel(IAlarmView alarms, IPlantView plant, StorageRead
     public static readonly string[] States =
         ["normal", "unacknowledged", "acknowledged", "returned-unacknowledged", "shelved", "suppressed-by-design", "out-of-service"];
 
+    /// <summary>Alarms that need the operator: unacknowledged, acknowledged or returned-unacknowledged.</summary>
     public IReadOnlyList<AlarmView> Active { get; private set; } = [];
+
+    /// <summary>Alarms taken out of the operator's list: shelved, suppressed by design, out of service.</summary>
+    public IReadOnlyList<AlarmView> SetAside { get; private set; } = [];
     public IReadOnlyList<AlarmJournalEntry> History { get; private set; } = [];
     public AlarmHealthReport? Health { get; private set; }
     public IReadOnlyList<string> LoopIds { get; private set; } = [];
@@ -93,6 +97,9 @@ public sealed class AlarmsModel(IAlarmView alarms, IPlantView plant, StorageRead
         }
     }
 
+    /// <summary>Is an alarm in this state in front of the operator (ISA-18.2: not shelved, suppressed or out of service)?</summary>
+    public static bool Annunciated(string state) => state is "unacknowledged" or "acknowledged" or "returned-unacknowledged";
+
     /// <summary>May an alarm in this state be acknowledged?</summary>
     public static bool Acknowledgeable(string state) => state is "unacknowledged" or "returned-unacknowledged";
 
@@ -103,9 +110,11 @@ public sealed class AlarmsModel(IAlarmView alarms, IPlantView plant, StorageRead
     {
         Now = plant.Now;
         CanOperate = (await authorization.AuthorizeAsync(User, Roles.CanOperate)).Succeeded;
-        Active = alarms.Alarms(activeOnly: true)
+        var notNormal = alarms.Alarms(activeOnly: true)
             .OrderBy(a => a.Priority switch { "high" => 0, "medium" => 1, _ => 2 })
             .ThenBy(a => a.Raised ?? DateTimeOffset.MaxValue).ToList();
+        Active = notNormal.Where(a => Annunciated(a.State)).ToList();
+        SetAside = notNormal.Where(a => !Annunciated(a.State)).ToList();
         var all = alarms.Alarms(activeOnly: false);
         LoopIds = plant.Loops().Select(l => l.Id).ToList();
         Kinds = all.Select(a => a.Kind).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToList();

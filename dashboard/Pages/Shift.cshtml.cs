@@ -30,7 +30,8 @@ public sealed class ShiftModel(IPlantView plant, IAlarmView alarms, StorageReade
         var rows = await reader.ReadJournalAsync(new JournalQuery(window.Start.ToUnixTimeMilliseconds(), window.End.ToUnixTimeMilliseconds(),
             Limit: 100_000, OldestFirst: true), ct);
         Report = ShiftReport.Compute(rows, window);
-        ActiveNow = Previous ? [] : alarms.Alarms(activeOnly: true);
+        // Suppressed-by-design alarms follow from another alarm; they are not part of what the next shift must know.
+        ActiveNow = Previous ? [] : alarms.Alarms(activeOnly: true).Where(a => a.State != "suppressed-by-design").ToList();
         var areas = new Dictionary<string, string>(StringComparer.Ordinal);
         foreach (var l in plant.Loops()) areas.TryAdd(l.Id, l.Area);
         Areas = areas;

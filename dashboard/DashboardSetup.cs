@@ -1,11 +1,15 @@
 using LoopWatch.Dashboard.Access;
 using LoopWatch.Dashboard.Api;
+using LoopWatch.Dashboard.Reports;
+using LoopWatch.Storage;
+using LoopWatch.Storage.Users;
 using Microsoft.AspNetCore.Authentication.Cookies;
 using Microsoft.AspNetCore.Builder;
 using Microsoft.AspNetCore.DataProtection;
 using Microsoft.AspNetCore.Http;
 using Microsoft.AspNetCore.Routing;
 using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.DependencyInjection.Extensions;
 
 namespace LoopWatch.Dashboard;
 
@@ -17,10 +21,16 @@ public static class DashboardSetup
 
     private static readonly Lazy<string> Css = new(() => Asset("site.css"));
 
-    /// <summary>Registers Razor Pages, cookie login with roles, anti-forgery and persisted data-protection keys.</summary>
-    public static IServiceCollection AddLoopWatchDashboard(this IServiceCollection services, DashboardAccess access, string keysDirectory)
+    /// <summary>Registers Razor Pages, cookie login with roles, anti-forgery, persisted data-protection keys and the shift
+    /// schedule (<paramref name="shifts"/>, else one the host registered, else <see cref="ShiftSchedule.Default"/>).</summary>
+    public static IServiceCollection AddLoopWatchDashboard(this IServiceCollection services, DashboardAccess access, string keysDirectory,
+        ShiftSchedule? shifts = null)
     {
         services.AddSingleton(access);
+        if (shifts is not null) services.AddSingleton(shifts);
+        else services.TryAddSingleton(ShiftSchedule.Default);
+        // The login page needs the users table; a host that registers its own store keeps it.
+        services.TryAddSingleton(sp => new UserStore(sp.GetRequiredService<LoopWatchDatabase>()));
         services.AddSingleton<LoginThrottle>();
         // Keys on disk so a restart of the agent does not log everybody out.
         services.AddDataProtection().PersistKeysToFileSystem(new DirectoryInfo(keysDirectory)).SetApplicationName("LoopWatch");

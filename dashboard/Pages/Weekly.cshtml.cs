@@ -1,0 +1,52 @@
+using System.Globalization;
+using System.Text;
+using LoopWatch.Dashboard.Model;
+using LoopWatch.Dashboard.Reports;
+using LoopWatch.Storage.Reading;
+using Microsoft.AspNetCore.Mvc;
+using Microsoft.AspNetCore.Mvc.RazorPages;
+
+namespace LoopWatch.Dashboard.Pages;
+
+/// <summary>The weekly summary of loop health against the week before, as a page (printable on A4) and as CSV.</summary>
+public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSchedule schedule) : PageModel
+{
+    public WeekOverWeek? Summary { get; private set; }
+    public DateTimeOffset Now { get; private set; }
+    public bool IsComplete { get; private set; }
+
+    public async Task<IActionResult> OnGetAsync(string? week, CancellationToken ct)
+    {
+        if (!TryWeek(week, out var w)) return BadRequest("week must be a date yyyy-MM-dd (the Monday of an ISO week)");
+        Summary = new WeekOverWeek(await SummaryAsync(w, ct), await SummaryAsync(w.Before(), ct));
+        IsComplete = w.End <= Now;
+        return Page();
+    }
+
+    public async Task<IActionResult> OnGetCsvAsync(string? week, CancellationToken ct)
+    {
+        if (!TryWeek(week, out var w)) return BadRequest("week must be a date yyyy-MM-dd (the Monday of an ISO week)");
+        var csv = WeeklyCsv.Write(await SummaryAsync(w, ct));
+        return File(Encoding.UTF8.GetBytes(csv), "text/csv; charset=utf-8", $"loopwatch-week-{w.Key}.csv");
+    }
+
+    // A given date snaps to the Monday of its ISO week; none means the last complete week in plant time.
+    private bool TryWeek(string? text, out ReportWeek week)
+    {
+        Now = plant.Now;
+        week = ReportWeek.LastComplete(Now, schedule.Zone);
+        if (string.IsNullOrEmpty(text)) return true;
+        if (!DateOnly.TryParseExact(text, "yyyy-MM-dd", CultureInfo.InvariantCulture, DateTimeStyles.None, out var day)) return false;
+        week = ReportWeek.Containing(day, schedule.Zone);
+        return true;
+    }
+
+    private async Task<WeeklySummary> SummaryAsync(ReportWeek w, CancellationToken ct)
+    {
+        long from = w.Start.ToUnixTimeMilliseconds(), to = w.End.ToUnixTimeMilliseconds();
+        var hourly = await reader.ReadHourlyStatsAsync(from, to, ct);
+        var journal = await reader.ReadJournalAsync(new JournalQuery(from, to, Limit: 1_000_000, OldestFirst: true), ct);
+        var areas = plant.Loops().Select(l => KeyValuePair.Create(l.Id, l.Area)).ToList();
+        return WeeklySummary.Compute(w, hourly, areas, journal);
+    }
+}

@@ -11,10 +11,11 @@ public sealed class LoopCell
     private readonly object _gate = new();
     private readonly TrendBuffer _trend = new(TimeSpan.FromSeconds(5));
 
-    /// <summary>A cell for <paramref name="spec"/>; finding changes go to <paramref name="sink"/>.</summary>
-    public LoopCell(LoopSpec spec, Action<FindingChange>? sink)
+    /// <summary>A cell for <paramref name="spec"/>; finding changes go to <paramref name="sink"/>; <paramref name="extra"/> detectors run last.</summary>
+    public LoopCell(LoopSpec spec, Action<FindingChange>? sink, IEnumerable<LoopDetector>? extra = null)
     {
         var detectors = new List<LoopDetector>(DetectorSet.For(spec)) { new TrendRecorder(_trend) };
+        if (extra is not null) detectors.AddRange(extra);
         Monitor = new LoopMonitor(spec, sink, detectors);
     }
 

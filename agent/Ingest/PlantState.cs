@@ -1,5 +1,6 @@
 using LoopWatch.Analytics.Configuration;
 using LoopWatch.Analytics.Findings;
+using LoopWatch.Analytics.Monitoring;
 using LoopWatch.Analytics.Sampling;
 using LoopWatch.Dashboard.Model;
 using Microsoft.Extensions.Logging;
@@ -21,13 +22,14 @@ public sealed class PlantState : IPlantView
     private long _nextRejectLogTicks;
     private long _suppressedRejectLogs;
 
-    /// <summary>Builds the cells and routes; finding changes go to <paramref name="findings"/>.</summary>
-    public PlantState(IReadOnlyList<LoopSpec> specs, PlantClock clock, TimeProvider time, ILogger<PlantState> log, Action<FindingChange>? findings = null)
+    /// <summary>Builds the cells and routes; finding changes go to <paramref name="findings"/>; <paramref name="extra"/> adds detectors per loop.</summary>
+    public PlantState(IReadOnlyList<LoopSpec> specs, PlantClock clock, TimeProvider time, ILogger<PlantState> log, Action<FindingChange>? findings = null,
+        Func<LoopSpec, IEnumerable<LoopDetector>>? extra = null)
     {
         Clock = clock;
         _time = time;
         _log = log;
-        _cells = specs.Select(s => new LoopCell(s, findings)).ToArray();
+        _cells = specs.Select(s => new LoopCell(s, findings, extra?.Invoke(s))).ToArray();
         _byId = _cells.ToDictionary(c => c.Spec.Id, StringComparer.Ordinal);
         _routes = new Dictionary<string, TagRoute>(StringComparer.Ordinal);
         foreach (var cell in _cells)
@@ -91,10 +93,12 @@ public sealed class PlantState : IPlantView
     }
 
     /// <summary>Moves every loop's clock to the plant's time now.</summary>
-    public void AdvanceAll()
+    public void AdvanceAll() => AdvanceTo(Clock.NowTicks);
+
+    /// <summary>Moves every loop's clock to event time <paramref name="nowTicks"/> (offline analysis drives it from the file's timestamps).</summary>
+    public void AdvanceTo(long nowTicks)
     {
-        var now = Clock.NowTicks;
-        foreach (var cell in _cells) cell.Advance(now);
+        foreach (var cell in _cells) cell.Advance(nowTicks);
     }
 
     /// <inheritdoc />

@@ -1,0 +1,46 @@
+using System.Text.Json;
+using LoopWatch.Dashboard.Api;
+
+namespace LoopWatch.Agent.Analyze;
+
+/// <summary>The analysis as JSON, snake_case as the HTTP API (<see cref="ApiJson.Options"/>): loops, then what was rejected.</summary>
+public static class JsonReport
+{
+    /// <summary>Writes the report to <paramref name="output"/>.</summary>
+    public static void Write(AnalysisResult result, Stream output)
+    {
+        var r = result.Rejects;
+        var doc = new
+        {
+            files = result.Files,
+            rows = result.Rows,
+            values = result.Values,
+            alarms = result.AlarmNote,
+            loops = ReportOrder.Sorted(result.Loops).Select(l => new
+            {
+                id = l.Spec.Id,
+                kind = l.Kind,
+                process = l.Spec.Process.ToString().ToLowerInvariant(),
+                description = l.Spec.Description,
+                unit = l.Spec.Unit,
+                samples = l.Samples,
+                from = l.From,
+                to = l.To,
+                stats = l.Stats,
+                window_stats = l.WindowStats,
+                findings = l.Findings.Select(f => (object)f).ToArray(),
+            }).ToArray(),
+            rejected = new
+            {
+                rows = r.Rows,
+                examples = r.Examples,
+                unknown_tags = new { values = r.UnknownValues, count = r.UnknownTagCount, tags = r.UnknownTags },
+                out_of_order = r.OutOfOrder,
+                late = result.Late,
+                outside_range = result.OutsideRange,
+                files = r.FileErrors,
+            },
+        };
+        JsonSerializer.Serialize(output, doc, ApiJson.Options);
+    }
+}

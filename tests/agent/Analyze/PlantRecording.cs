@@ -18,8 +18,8 @@ public sealed class PlantRecording
     public List<LoopOptions> Loops { get; } = [];
     public List<string> Tags { get; } = [];
 
-    /// <summary>Steps <paramref name="loops"/> for <paramref name="seconds"/> s and records every <paramref name="every"/>-th second.</summary>
-    public static PlantRecording Of(IReadOnlyList<SimulatedLoop> loops, int seconds, int every = 1)
+    /// <summary>Steps <paramref name="loops"/> for <paramref name="seconds"/> s in steps of 1/<paramref name="substeps"/> s and records every <paramref name="every"/>-th second.</summary>
+    public static PlantRecording Of(IReadOnlyList<SimulatedLoop> loops, int seconds, int every = 1, int substeps = 1)
     {
         var rec = new PlantRecording();
         foreach (var l in loops)
@@ -33,7 +33,8 @@ public sealed class PlantRecording
         }
         for (var t = 0; t < seconds; t++)
         {
-            foreach (var l in loops) l.Step(t, 1);
+            for (var k = 0; k < substeps; k++)
+                foreach (var l in loops) l.Step(t + (double)k / substeps, 1.0 / substeps);
             if ((t + 1) % every != 0) continue;
             var at = Start.AddSeconds(t + 1);
             foreach (var l in loops)

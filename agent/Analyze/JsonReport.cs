@@ -34,13 +34,14 @@ public static class JsonReport
             {
                 rows = r.Rows,
                 examples = r.Examples,
-                unknown_tags = new { values = r.UnknownValues, count = r.UnknownTagCount, tags = r.UnknownTags },
+                unknown_tags = new { values = r.UnknownValues, count = r.UnknownTagCount, tags = r.UnknownTags.Select(t => new { tag = t.Key, values = t.Value }).ToArray() },
                 out_of_order = r.OutOfOrder,
                 late = result.Late,
                 outside_range = result.OutsideRange,
                 files = r.FileErrors,
             },
         };
+        // Tag names are data: a list of objects, never dictionary keys, which the snake_case key policy would rewrite.
         JsonSerializer.Serialize(output, doc, ApiJson.Options);
     }
 }

@@ -1,8 +1,11 @@
 using Microsoft.Extensions.Configuration;
+using LoopWatch.Agent.Alarms;
 using LoopWatch.Agent.Broker;
 using LoopWatch.Agent.Demo;
 using LoopWatch.Agent.Ingest;
 using LoopWatch.Agent.Plant;
+using LoopWatch.Agent.Storage;
+using LoopWatch.Storage;
 using LoopWatch.Dashboard;
 using LoopWatch.Dashboard.Model;
 using Microsoft.AspNetCore.Builder;
@@ -18,7 +21,8 @@ namespace LoopWatch.Agent;
 public static class AgentHost
 {
     /// <summary>Builds the web application without starting it.</summary>
-    public static WebApplication Build(AgentSetup setup, Action<ILoggingBuilder>? logging = null)
+    /// <remarks><paramref name="configure"/> runs after the agent's registrations, so it can replace them (tests use it for the action guard).</remarks>
+    public static WebApplication Build(AgentSetup setup, Action<ILoggingBuilder>? logging = null, Action<IServiceCollection>? configure = null)
     {
         var builder = WebApplication.CreateBuilder(new WebApplicationOptions
         {
@@ -42,21 +46,52 @@ public static class AgentHost
         services.AddSingleton(opts);
         services.AddSingleton(opts.Broker);
         services.AddSingleton(new PlantClock(setup.Time, setup.Demo?.Speed ?? 1));
-        services.AddSingleton(sp => new PlantState(setup.Specs, sp.GetRequiredService<PlantClock>(), setup.Time,
-            sp.GetRequiredService<ILogger<PlantState>>(), FindingLog(sp.GetRequiredService<ILogger<PlantState>>())));
+        services.AddSingleton(opts.AlarmSystem);
+        services.AddSingleton(new StorageOptions
+        {
+            DatabasePath = Path.Combine(opts.DataDir, AgentStorage.FileName),
+            RetentionDays = opts.AlarmSystem.RetentionDays,
+        });
+        services.AddSingleton<AgentStorage>();
+        // Others (user store, reports) resolve the open database and reader; AgentStorage owns and closes them.
+        services.AddSingleton(sp => sp.GetRequiredService<AgentStorage>().Database);
+        services.AddSingleton(sp => sp.GetRequiredService<AgentStorage>().Reader);
+        services.AddSingleton<AlarmJournal>();
+        services.AddSingleton(sp => new AlarmEngine(setup.Specs, [sp.GetRequiredService<AlarmJournal>()]));
+        services.AddSingleton(sp =>
+        {
+            var storage = sp.GetRequiredService<AgentStorage>();
+            var engine = sp.GetRequiredService<AlarmEngine>();
+            LoopHooks hooks = (spec, statistics) =>
+            [
+                new HourlyRecorder(spec, statistics, row => storage.Writer.Post(row)),
+                new AlarmFeed(engine.Loop(spec.Id)!, statistics),
+            ];
+            return new PlantState(setup.Specs, sp.GetRequiredService<PlantClock>(), setup.Time,
+                sp.GetRequiredService<ILogger<PlantState>>(), FindingLog(sp.GetRequiredService<ILogger<PlantState>>()), hooks);
+        });
         services.AddSingleton<IPlantView>(sp => sp.GetRequiredService<PlantState>());
+        services.AddSingleton<IAlarmView, LiveAlarmView>();
+        services.AddSingleton<IActionGuard, Dashboard.Access.RoleGuard>();
 
-        // Hosted services start in registration order: the broker before anyone connects to it.
+        // Hosted services start in registration order and stop in reverse: storage opens first and closes last,
+        // stored alarm states are back before ingest, the broker runs before anyone connects to it.
+        services.AddHostedService<StorageLifetime>();
+        services.AddHostedService<AlarmRestore>();
         if (opts.Broker.Embedded) services.AddHostedService<EmbeddedBroker>();
         services.AddHostedService<MqttIngest>();
         services.AddHostedService<PlantTicker>();
+        services.AddHostedService<AlarmTicker>();
+        if (opts.AlarmSystem.PublishHealth) services.AddHostedService<HealthPublisher>();
+        services.AddHostedService<RetentionService>();
         if (setup.Demo is { } demo)
         {
             services.AddSingleton(demo);
             services.AddSingleton(new DemoPlant());
             services.AddHostedService<PlantPublisher>();
         }
-        services.AddLoopWatchDashboard();
+        services.AddLoopWatchDashboard(new Dashboard.Access.DashboardAccess(opts.Dashboard.RequireLoginToView), Path.Combine(Path.GetFullPath(opts.DataDir), "keys"));
+        configure?.Invoke(services);
 
         var app = builder.Build();
         app.MapLoopWatchDashboard();

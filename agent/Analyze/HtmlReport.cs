@@ -39,22 +39,28 @@ public static class HtmlReport
         sb.Append(ci, $"{E(ReportOrder.Time(from))} to {E(ReportOrder.Time(to))}. {E(result.AlarmNote)}.</p>");
         sb.Append("<p class=\"caution\"><strong>Caution.</strong> ").Append(E(ReportOrder.Caution)).Append("</p>");
 
-        sb.Append("<table><thead><tr><th>loop</th><th>kind</th><th>description</th><th>findings</th><th>samples</th><th>key figure</th></tr></thead><tbody>");
+        sb.Append("<table><thead><tr><th>loop</th><th>kind</th><th>description</th><th>findings</th><th>alarms</th><th>samples</th><th>key figure</th></tr></thead><tbody>");
         foreach (var l in loops)
         {
             var kinds = string.Join(", ", l.Findings.Select(f => f.Active ? f.Kind : $"{f.Kind} (ended)").Distinct());
             sb.Append(ci, $"<tr><td><a href=\"#{E(Anchor(l))}\">{E(l.Spec.Id)}</a></td><td>{E(l.Kind)}</td><td>{E(l.Spec.Description)}</td>");
-            sb.Append(ci, $"<td class=\"{(l.Findings.Any(f => f.Active) ? "state-active" : "")}\">{(kinds.Length == 0 ? "none" : E(kinds))}</td><td class=\"n\">{l.Samples:N0}</td><td>{E(KeyFigure(l))}</td></tr>");
+            sb.Append(ci, $"<td class=\"{(l.Findings.Any(f => f.Active) ? "state-active" : "")}\">{(kinds.Length == 0 ? "none" : E(kinds))}</td><td>{E(Alarms(result, l))}</td><td class=\"n\">{l.Samples:N0}</td><td>{E(KeyFigure(l))}</td></tr>");
         }
         sb.Append("</tbody></table>");
 
-        foreach (var l in loops) Loop(sb, l);
+        foreach (var l in loops) Loop(sb, l, Alarms(result, l));
         Rejected(sb, result);
         sb.Append("</body></html>");
         o.Write(sb.ToString());
     }
 
-    private static void Loop(StringBuilder sb, LoopResult l)
+    private static string Alarms(AnalysisResult result, LoopResult l)
+    {
+        var list = result.AlarmsOf(l.Spec.Id);
+        return list.Count == 0 ? "none" : string.Join(", ", list.Select(a => $"{a.Kind} x{a.Activations} ({a.StateAtEnd} at end)"));
+    }
+
+    private static void Loop(StringBuilder sb, LoopResult l, string alarms)
     {
         var ci = CultureInfo.InvariantCulture;
         var s = l.Stats;
@@ -91,6 +97,7 @@ public static class HtmlReport
             Row(sb, "PV swing (half peak-to-peak), % of span", s.CycleAmplitudePct);
         }
         sb.Append("</tbody></table>");
+        sb.Append("<p><strong>Alarms the agent would have raised:</strong> ").Append(E(alarms)).Append("</p>");
         if (l.Findings.Count == 0) sb.Append("<p>No findings over the span analysed.</p>");
         else
         {

@@ -29,7 +29,9 @@ public static class JsonReport
                 stats = l.Stats,
                 window_stats = l.WindowStats,
                 findings = l.Findings.Select(f => (object)f).ToArray(),
+                alarms = result.AlarmsOf(l.Spec.Id),
             }).ToArray(),
+            alarm_transitions = result.AlarmJournal.Count,
             rejected = new
             {
                 rows = r.Rows,

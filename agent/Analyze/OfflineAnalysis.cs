@@ -1,3 +1,4 @@
+using LoopWatch.Agent.Alarms;
 using LoopWatch.Agent.Ingest;
 using LoopWatch.Analytics.Configuration;
 using LoopWatch.Analytics.Monitoring;
@@ -6,9 +7,10 @@ using Microsoft.Extensions.Logging.Abstractions;
 namespace LoopWatch.Agent.Analyze;
 
 /// <summary>
-/// Runs historian files through the live path: every value goes to <see cref="PlantState.Take"/>, and every loop's
-/// clock is moved on by the files' own event time (<see cref="PlantState.AdvanceTo"/>) whenever it passes a second,
-/// as the live ticker does once a second, so stale data and gaps are judged exactly as live.
+/// Runs historian files through the live path: every value goes to <see cref="PlantState.Take"/>, findings feed the
+/// <see cref="AlarmEngine"/> as live (<see cref="AlarmFeed"/>), and whenever the files' event time passes a second every
+/// loop is moved on (<see cref="PlantState.AdvanceTo"/>) and its alarms evaluated (<see cref="AlarmTicker.Tick"/>),
+/// as the live tickers do once a second, so stale data, gaps and alarm delays are judged exactly as live.
 /// </summary>
 public sealed class OfflineAnalysis(IReadOnlyList<LoopSpec> specs, int trendPoints = 600)
 {
@@ -27,12 +29,15 @@ public sealed class OfflineAnalysis(IReadOnlyList<LoopSpec> specs, int trendPoin
         var time = new EventTime();
         var collector = new FindingCollector();
         var accumulators = new Dictionary<string, SpanAccumulator>(StringComparer.Ordinal);
-        var plant = new PlantState(specs, new PlantClock(time), time, NullLogger<PlantState>.Instance, collector.Take, spec =>
+        var alarms = new AlarmRecord();
+        var engine = new AlarmEngine(specs, [alarms]);
+        var plant = new PlantState(specs, new PlantClock(time), time, NullLogger<PlantState>.Instance, collector.Take, (spec, statistics) =>
         {
             var a = new SpanAccumulator(spec, trendPoints);
             accumulators[spec.Id] = a;
-            return [a];
+            return [new AlarmFeed(engine.Loop(spec.Id)!, statistics), a];
         });
+        var ticker = new AlarmTicker(plant, engine, time);
         var rejects = new RowRejects();
         var routes = new Dictionary<string, TagRoute>(plant.Routes, StringComparer.Ordinal);
         var readers = new List<HistorianReader>();
@@ -64,7 +69,11 @@ public sealed class OfflineAnalysis(IReadOnlyList<LoopSpec> specs, int trendPoin
                 {
                     // Move every loop to the new second before its values land, as the live ticker would have done in between.
                     time.MoveTo(rec.Ticks);
-                    if (second != long.MinValue) plant.AdvanceTo(rec.Ticks);
+                    if (second != long.MinValue)
+                    {
+                        plant.AdvanceTo(rec.Ticks);
+                        ticker.Tick();
+                    }
                     second = s;
                     if (Progress is not null && (s & 255) == 0) Progress(readers.Sum(r => r.Position), total);
                 }
@@ -72,12 +81,16 @@ public sealed class OfflineAnalysis(IReadOnlyList<LoopSpec> specs, int trendPoin
                 plant.Take(rec.Route, rec.Ticks, rec.Value, rec.Quality);
                 values++;
             }
-            if (lastTicks > 0) plant.AdvanceTo(lastTicks);
+            if (lastTicks > 0)
+            {
+                plant.AdvanceTo(lastTicks);
+                ticker.Tick();
+            }
             Progress?.Invoke(total, total);
             var rows = readers.Sum(r => r.Rows);
             var loops = plant.Cells.Select(c => Result(c, accumulators[c.Spec.Id], collector)).ToList();
             long late = loops.Sum(l => l.LateValues);
-            return new AnalysisResult(loops, rejects, files, rows, values, outside, late, plant);
+            return new AnalysisResult(loops, rejects, files, rows, values, outside, late, plant, engine, alarms);
         }
         finally
         {

@@ -26,6 +26,8 @@ public static class TextReport
                 o.WriteLine(string.Create(ci, $"  error mean {F(s.MeanErrorPct)} %, std {F(s.ErrorStdPct)} % of span; reversals {s.Reversals}/span ({F(s.ReversalsPerHour)}/h), travel {F(s.TravelPctPerHour)} %/h; saturated {F(s.SaturatedPct)} %; in auto {F(s.TimeInAutoPct)} %"));
             else
                 o.WriteLine(string.Create(ci, $"  starts {s.Starts} ({F(s.StartsPerHour)}/h), cycle period {F(s.CyclePeriodS)} s, duty {F(s.DutyPct)} %, PV swing +/-{F(s.CycleAmplitudePct)} % of span"));
+            foreach (var a in result.AlarmsOf(l.Spec.Id))
+                o.WriteLine(string.Create(ci, $"  alarm {l.Spec.Id}:{a.Kind} ({a.Priority.ToString().ToLowerInvariant()}): annunciated {a.Activations} time(s), {a.StateAtEnd} at the end"));
             foreach (var f in l.Findings) o.WriteLine(string.Create(ci, $"  - {f.Kind} {ReportOrder.Time(f.Start)} to {(f.End is null ? "end (still active)" : ReportOrder.Time(f.End))}: {f.Diagnosis}"));
             o.WriteLine();
         }

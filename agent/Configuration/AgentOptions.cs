@@ -12,4 +12,6 @@ public sealed class AgentOptions
     public string DataDir { get; set; } = "data";
 
     public List<LoopOptions> Loops { get; set; } = [];
+
+    public AlarmSystemOptions AlarmSystem { get; set; } = new();
 }

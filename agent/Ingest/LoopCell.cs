@@ -11,11 +11,12 @@ public sealed class LoopCell
     private readonly object _gate = new();
     private readonly TrendBuffer _trend = new(TimeSpan.FromSeconds(5));
 
-    /// <summary>A cell for <paramref name="spec"/>; finding changes go to <paramref name="sink"/>; <paramref name="extra"/> detectors run last.</summary>
-    public LoopCell(LoopSpec spec, Action<FindingChange>? sink, IEnumerable<LoopDetector>? extra = null)
+    /// <summary>A cell for <paramref name="spec"/>; finding changes go to <paramref name="sink"/>, <paramref name="hooks"/> add detectors.</summary>
+    public LoopCell(LoopSpec spec, Action<FindingChange>? sink, LoopHooks? hooks = null)
     {
         var detectors = new List<LoopDetector>(DetectorSet.For(spec)) { new TrendRecorder(_trend) };
-        if (extra is not null) detectors.AddRange(extra);
+        // The hooks read statistics through the monitor, which exists only after the list is built.
+        if (hooks is not null) detectors.AddRange(hooks(spec, () => Monitor!.Statistics()));
         Monitor = new LoopMonitor(spec, sink, detectors);
     }
 

@@ -1,6 +1,5 @@
 using LoopWatch.Analytics.Configuration;
 using LoopWatch.Analytics.Findings;
-using LoopWatch.Analytics.Monitoring;
 using LoopWatch.Analytics.Sampling;
 using LoopWatch.Dashboard.Model;
 using Microsoft.Extensions.Logging;
@@ -22,14 +21,14 @@ public sealed class PlantState : IPlantView
     private long _nextRejectLogTicks;
     private long _suppressedRejectLogs;
 
-    /// <summary>Builds the cells and routes; finding changes go to <paramref name="findings"/>; <paramref name="extra"/> adds detectors per loop.</summary>
-    public PlantState(IReadOnlyList<LoopSpec> specs, PlantClock clock, TimeProvider time, ILogger<PlantState> log, Action<FindingChange>? findings = null,
-        Func<LoopSpec, IEnumerable<LoopDetector>>? extra = null)
+    /// <summary>Builds the cells and routes; finding changes go to <paramref name="findings"/>, <paramref name="hooks"/> add per-loop detectors.</summary>
+    public PlantState(IReadOnlyList<LoopSpec> specs, PlantClock clock, TimeProvider time, ILogger<PlantState> log,
+        Action<FindingChange>? findings = null, LoopHooks? hooks = null)
     {
         Clock = clock;
         _time = time;
         _log = log;
-        _cells = specs.Select(s => new LoopCell(s, findings, extra?.Invoke(s))).ToArray();
+        _cells = specs.Select(s => new LoopCell(s, findings, hooks)).ToArray();
         _byId = _cells.ToDictionary(c => c.Spec.Id, StringComparer.Ordinal);
         _routes = new Dictionary<string, TagRoute>(StringComparer.Ordinal);
         foreach (var cell in _cells)
@@ -48,6 +47,9 @@ public sealed class PlantState : IPlantView
 
     /// <summary>Every topic the agent subscribes to.</summary>
     public IReadOnlyCollection<string> Topics => _routes.Keys;
+
+    /// <summary>The cell of a loop, or null.</summary>
+    public LoopCell? Cell(string id) => _byId.GetValueOrDefault(id);
 
     /// <summary>The loop cells in configuration order.</summary>
     public IReadOnlyList<LoopCell> Cells => _cells;

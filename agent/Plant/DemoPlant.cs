@@ -36,17 +36,17 @@ public sealed class DemoPlant
             Pid("FIC-102", "Filter backwash flow (sticky valve)", "Filtration", "flow", 0, 400, "m3/h", true, new PidLoopSetup
             {
                 Kc = 0.4, TiSeconds = 15, TauSeconds = 6, DeadTimeSeconds = 2, SetPointPct = 45,
-                StictionS = 4, StictionJ = 1.5, NoiseSigmaPct = 0.1, Seed = seed + 40,
+                StictionS = 5, StictionJ = 3, NoiseSigmaPct = 0.1, LoadSteps = [(120, 3)], InputNoiseSigmaPct = 0.2, Seed = seed + 40,
             }),
             Pid("TIC-202", "Boiler feedwater preheater outlet temperature", "Boiler house", "temperature", 0, 200, "degC", false, new PidLoopSetup
             {
                 Kc = 5.3, TiSeconds = 40, TauSeconds = 60, DeadTimeSeconds = 15, SetPointPct = 50,
-                LoadAmplitudePct = 3, LoadMeanGapSeconds = 120, LoadMeanHoldSeconds = 120, NoiseSigmaPct = 0.05, Seed = seed + 50,
+                InputNoiseSigmaPct = 2.5, InputNoiseFilterSeconds = 50, NoiseSigmaPct = 0.05, Seed = seed + 50,
             }, new TuningOptions { Kc = 5.3, TiSeconds = 40 }),
             Pid("PIC-103", "Steam header pressure", "Boiler house", "pressure", 0, 16, "bar", false, new PidLoopSetup
             {
-                Kc = 1.5, TiSeconds = 10, TauSeconds = 10, DeadTimeSeconds = 1, SetPointPct = 62.5,
-                NoiseSigmaPct = 1.0, Seed = seed + 60,
+                Kc = 3, TiSeconds = 10, TauSeconds = 10, DeadTimeSeconds = 1, SetPointPct = 62.5,
+                NoiseSigmaPct = 0.5, Seed = seed + 60,
             }),
             Pid("FIC-104", "Coagulant dosing flow", "Filtration", "flow", 0, 50, "L/h", false, new PidLoopSetup
             {

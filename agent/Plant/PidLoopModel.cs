@@ -15,7 +15,7 @@ public sealed class PidLoopModel : SimulatedLoop
     private readonly IntegratingTank? _tank;
     private readonly double _tankOutflowPct;
     private readonly StictionValve? _valve;
-    private readonly MeasurementNoise? _noise;
+    private readonly MeasurementNoise? _noise, _inputNoise;
     private readonly LoadSchedule? _loads;
     private readonly (double Start, double End)[] _manual;
     private readonly (double At, double LoadPct)[] _loadSteps;
@@ -46,6 +46,7 @@ public sealed class PidLoopModel : SimulatedLoop
         }
         if (setup.StictionS is { } s) _valve = new StictionValve(s, setup.StictionJ, _op);
         if (setup.NoiseSigmaPct > 0) _noise = new MeasurementNoise(setup.NoiseSigmaPct, setup.NoiseFilterSeconds, setup.Dt, setup.Seed);
+        if (setup.InputNoiseSigmaPct > 0) _inputNoise = new MeasurementNoise(setup.InputNoiseSigmaPct, setup.InputNoiseFilterSeconds, setup.Dt, setup.Seed + 2);
         if (setup.LoadAmplitudePct > 0) _loads = new LoadSchedule(setup.LoadAmplitudePct, setup.LoadMeanGapSeconds, setup.LoadMeanHoldSeconds, setup.Seed + 1);
         _manual = setup.ManualPeriods ?? [];
         _loadSteps = setup.LoadSteps ?? [];
@@ -60,7 +61,7 @@ public sealed class PidLoopModel : SimulatedLoop
     /// <inheritdoc />
     public override void Step(double t, double dt)
     {
-        var load = (_loads?.Step(dt) ?? 0) + StepLoad(t);
+        var load = (_loads?.Step(dt) ?? 0) + StepLoad(t) + (_inputNoise?.Next() ?? 0);
         var manual = InManual(t);
         if (manual)
         {

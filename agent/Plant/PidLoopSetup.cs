@@ -19,6 +19,9 @@ public sealed record PidLoopSetup
     public double StictionJ { get; init; }
     public double NoiseSigmaPct { get; init; }
     public double NoiseFilterSeconds { get; init; }
+    /// <summary>Unmeasured disturbance at the process input: first-order filtered noise of this sigma, % of output.</summary>
+    public double InputNoiseSigmaPct { get; init; }
+    public double InputNoiseFilterSeconds { get; init; } = 50;
     public double LoadAmplitudePct { get; init; }
     public double LoadMeanGapSeconds { get; init; } = 600;
     public double LoadMeanHoldSeconds { get; init; } = 300;

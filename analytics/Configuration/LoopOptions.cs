@@ -23,4 +23,7 @@ public sealed class LoopOptions
 
     public LimitOptions? Limits { get; set; }
     public TuningOptions? Tuning { get; set; }
+
+    /// <summary>Alarm delays, deadband, priorities and operating windows; see <see cref="AlarmOptions"/>.</summary>
+    public AlarmOptions? Alarms { get; set; }
 }

@@ -65,10 +65,39 @@ public static class LoopOptionsCheck
         if (limits.StaleSeconds < limits.SampleSeconds) Fail("Limits:StaleSeconds", "must not be shorter than Limits:SampleSeconds");
 
         var tuning = CheckTuning(o.Tuning, Fail);
+        var alarms = CheckAlarms(o.Alarms, process, Fail);
         if (errors.Count != before) return null;
         return new LoopSpec(o.Id!, o.Description ?? "", o.Area ?? "", kind, process,
             o.Pv!.Tag!, min, max, o.Pv.Unit ?? "", NullIfEmpty(o.Sp?.Tag), o.Op!.Tag!, NullIfEmpty(o.Mode?.Tag), NullIfEmpty(o.Position?.Tag),
-            limits, tuning);
+            limits, tuning) { Alarms = alarms };
+    }
+
+    private static LoopAlarmLimits CheckAlarms(AlarmOptions? a, ProcessKind process, Action<string, string> fail)
+    {
+        var d = AlarmDefaults.For(process);
+        if (a is null) return d;
+        if (a.DeadbandPct is { } db && !(db >= 0 && db < 50)) fail("Alarms:DeadbandPct", "must be at least 0 and below 50");
+        if (a.OnDelaySeconds is { } on && !(on >= 0 && double.IsFinite(on))) fail("Alarms:OnDelaySeconds", "must be zero or a positive number");
+        if (a.OffDelaySeconds is { } off && !(off >= 0 && double.IsFinite(off))) fail("Alarms:OffDelaySeconds", "must be zero or a positive number");
+        var priorities = new Dictionary<string, AlarmPriority>(StringComparer.Ordinal);
+        foreach (var (kind, text) in a.Priorities ?? [])
+        {
+            if (!Findings.FindingKinds.All.Contains(kind)) fail($"Alarms:Priorities:{kind}", $"'{kind}' is not a finding kind ({string.Join(", ", Findings.FindingKinds.All)})");
+            else if (!Enum.TryParse<AlarmPriority>(text, ignoreCase: true, out var p) || !Enum.IsDefined(p) || int.TryParse(text, out _))
+                fail($"Alarms:Priorities:{kind}", $"'{text}' is not one of low, medium, high");
+            else priorities[kind] = p;
+        }
+        var windows = new List<AlarmWindow>();
+        for (var i = 0; i < (a.ActiveWhen?.Count ?? 0); i++)
+        {
+            if (AlarmWindow.TryParse(a.ActiveWhen![i], out var w)) windows.Add(w);
+            else fail($"Alarms:ActiveWhen:{i}", $"'{a.ActiveWhen[i]}' is not a window like 06:00-22:00");
+        }
+        var zone = string.IsNullOrWhiteSpace(a.TimeZone) ? d.TimeZone : a.TimeZone.Trim();
+        // Reads the system's time zone table once at configuration time; the analytics never touch it afterwards.
+        if (!TimeZoneInfo.TryFindSystemTimeZoneById(zone, out _)) fail("Alarms:TimeZone", $"'{zone}' is not a known time zone");
+        return new LoopAlarmLimits(a.DeadbandPct ?? d.DeadbandPct, a.OnDelaySeconds ?? d.OnDelaySeconds,
+            a.OffDelaySeconds ?? d.OffDelaySeconds, priorities, windows, zone);
     }
 
     private static LoopTuning CheckTuning(TuningOptions? t, Action<string, string> fail)

@@ -18,6 +18,9 @@ public sealed record LoopSpec(
     LoopLimits Limits,
     LoopTuning Tuning)
 {
+    /// <summary>Alarm settings with defaults applied; defaults by process kind when not set.</summary>
+    public LoopAlarmLimits Alarms { get; init; } = AlarmDefaults.For(Process);
+
     /// <summary>PV span in engineering units (Max - Min), always positive.</summary>
     public double Span => PvMax - PvMin;
 

@@ -11,7 +11,7 @@ namespace LoopWatch.Dashboard.Charts;
 /// </summary>
 public static class SvgTrend
 {
-    private const int W = 960, H = 320, Left = 64, Right = 56, Top = 16, Bottom = 36;
+    private const int W = 960, H = 330, Left = 64, Right = 56, Top = 26, Bottom = 36;
 
     /// <summary>The SVG markup of one trend.</summary>
     public static string Render(IReadOnlyList<TrendPoint> points, double pvMin, double pvMax, string unit, DateTimeOffset from, DateTimeOffset to,
@@ -35,7 +35,7 @@ public static class SvgTrend
             sb.Append(ci, $"<text x=\"{Left - 6}\" y=\"{y + 4:0.#}\" text-anchor=\"end\">{E(pv.ToString("G4", ci))}</text>");
             sb.Append(ci, $"<text x=\"{W - Right + 6}\" y=\"{y + 4:0.#}\">{100 - i * 25}%</text>");
         }
-        sb.Append(ci, $"<text x=\"{Left - 6}\" y=\"{H - 6}\" text-anchor=\"end\">{E(unit)}</text>");
+        sb.Append(ci, $"<text x=\"{Left - 6}\" y=\"12\" text-anchor=\"end\">{E(unit)}</text>");
         for (var i = 0; i <= 6; i++)
         {
             var t = from + (to - from) * (i / 6.0);

@@ -13,13 +13,13 @@ public sealed class LoopModel(IPlantView plant) : PageModel
     public string TrendSvg { get; private set; } = "";
     public IReadOnlyList<(string Name, double? Value)> Statistics { get; private set; } = [];
 
-    public IActionResult OnGet(string id)
+    public IActionResult OnGet([FromQuery] string? id)
     {
-        View = plant.Loop(id);
+        View = id is null ? null : plant.Loop(id);
         if (View is null) return NotFound();
         Now = plant.Now;
         var span = TimeSpan.FromHours(1);
-        var points = plant.Trend(id, span);
+        var points = plant.Trend(id!, span);
         var markers = View.Findings.Select(f => new TrendMarker(f.Start, $"{f.Kind} raised")).ToList();
         TrendSvg = SvgTrend.Render(points, View.PvMin, View.PvMax, View.Unit, Now - span, Now, markers, $"{View.Id} trend, last hour");
         var s = View.Statistics;

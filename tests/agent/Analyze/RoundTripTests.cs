@@ -40,7 +40,7 @@ public sealed class RoundTripTests
         var collector = new FindingCollector();
         var accumulators = new Dictionary<string, SpanAccumulator>();
         var live = new PlantState(specs, new PlantClock(time), time, NullLogger<PlantState>.Instance, c => { changes.Add(c); collector.Take(c); },
-            s => [accumulators[s.Id] = new SpanAccumulator(s)]);
+            (s, _) => [accumulators[s.Id] = new SpanAccumulator(s)]);
         long second = 0;
         foreach (var (at, tag, value) in rec.Values)
         {

@@ -1,0 +1,107 @@
+using System.Globalization;
+using Dapper;
+using LoopWatch.Storage.Schema;
+using Microsoft.Data.Sqlite;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Logging.Abstractions;
+
+namespace LoopWatch.Storage;
+
+/// <summary>
+/// The LoopWatch SQLite file: created when missing, set to WAL with synchronous=NORMAL, migrated to the latest schema on open.
+/// Hand out connections with <see cref="OpenConnection"/>; dispose to release pooled file handles.
+/// </summary>
+public sealed class LoopWatchDatabase : IDisposable
+{
+    private readonly string _connectionString;
+    private readonly string _connectionPragmas;
+
+    private LoopWatchDatabase(StorageOptions options, string fullPath)
+    {
+        Options = options;
+        Path = fullPath;
+        _connectionString = new SqliteConnectionStringBuilder
+        {
+            DataSource = fullPath,
+            Mode = SqliteOpenMode.ReadWriteCreate,
+            Cache = SqliteCacheMode.Private,
+            Pooling = true,
+            ForeignKeys = true,
+            DefaultTimeout = Math.Max(1, (int)Math.Ceiling(options.BusyTimeout.TotalSeconds)),
+        }.ToString();
+        // synchronous and busy_timeout are per connection, so every opened connection gets them.
+        _connectionPragmas = "PRAGMA synchronous = NORMAL; PRAGMA busy_timeout = " +
+            ((long)options.BusyTimeout.TotalMilliseconds).ToString(CultureInfo.InvariantCulture) + ";";
+    }
+
+    /// <summary>Full path of the database file.</summary>
+    public string Path { get; }
+
+    /// <summary>The options the database was opened with.</summary>
+    public StorageOptions Options { get; }
+
+    /// <summary>Schema version after opening (<c>PRAGMA user_version</c>).</summary>
+    public int SchemaVersion { get; private set; }
+
+    /// <summary>Migrations applied by this open; empty when the file was already current.</summary>
+    public IReadOnlyList<Migration> AppliedOnOpen { get; private set; } = [];
+
+    /// <summary>Opens or creates the database at <paramref name="path"/> with default options.</summary>
+    public static LoopWatchDatabase Open(string path, ILogger<LoopWatchDatabase>? logger = null) =>
+        Open(new StorageOptions { DatabasePath = path }, logger);
+
+    /// <summary>Opens or creates the database at <see cref="StorageOptions.DatabasePath"/> and applies pending migrations.</summary>
+    /// <exception cref="StorageSchemaException">The file was written by a newer schema than this build knows.</exception>
+    public static LoopWatchDatabase Open(StorageOptions options, ILogger<LoopWatchDatabase>? logger = null) =>
+        Open(options, SchemaMigrations.All, TimeProvider.System, logger);
+
+    internal static LoopWatchDatabase Open(
+        StorageOptions options, IReadOnlyList<Migration> migrations, TimeProvider time, ILogger? logger = null)
+    {
+        ArgumentNullException.ThrowIfNull(options);
+        var fullPath = System.IO.Path.GetFullPath(options.DatabasePath);
+        var folder = System.IO.Path.GetDirectoryName(fullPath);
+        if (!string.IsNullOrEmpty(folder)) Directory.CreateDirectory(folder);
+
+        var database = new LoopWatchDatabase(options, fullPath);
+        try
+        {
+            using var connection = database.OpenConnection();
+            // journal_mode=WAL is stored in the file, so setting it once here is enough (SQLite docs, "Write-Ahead Logging").
+            connection.ExecuteScalar<string>("PRAGMA journal_mode = WAL");
+            database.AppliedOnOpen = MigrationRunner.Run(
+                connection, fullPath, migrations, time, logger ?? NullLogger.Instance);
+            database.SchemaVersion = connection.ExecuteScalar<int>("PRAGMA user_version");
+        }
+        catch
+        {
+            database.Dispose();
+            throw;
+        }
+        return database;
+    }
+
+    /// <summary>Opens a new connection with the LoopWatch pragmas set; the caller disposes it.</summary>
+    public SqliteConnection OpenConnection()
+    {
+        var connection = new SqliteConnection(_connectionString);
+        try
+        {
+            connection.Open();
+            connection.Execute(_connectionPragmas);
+            return connection;
+        }
+        catch
+        {
+            connection.Dispose();
+            throw;
+        }
+    }
+
+    /// <summary>Closes the pooled connections of this file so it can be moved or deleted.</summary>
+    public void Dispose()
+    {
+        using var connection = new SqliteConnection(_connectionString);
+        SqliteConnection.ClearPool(connection);
+    }
+}

@@ -1,0 +1,89 @@
+using Dapper;
+using LoopWatch.Storage.Tests.Support;
+using LoopWatch.Storage.Writing;
+using Microsoft.Extensions.Logging;
+using Microsoft.Extensions.Time.Testing;
+
+namespace LoopWatch.Storage.Tests.Writing;
+
+public sealed class StorageWriterFaultTests : IDisposable
+{
+    private readonly TempDatabase _temp = new();
+
+    public void Dispose() => _temp.Dispose();
+
+    [Fact]
+    public async Task LockedDatabase_SetsFaultKeepsBacklog_ThenWritesAllWhenLockReleased()
+    {
+        using var db = LoopWatchDatabase.Open(_temp.Options(o => o with { BusyTimeout = TimeSpan.FromSeconds(1) }));
+        var clock = new FakeTimeProvider(new DateTimeOffset(2026, 3, 2, 6, 0, 0, TimeSpan.Zero));
+        var log = new RecordingLogger<StorageWriter>();
+        await using var writer = new StorageWriter(db, clock, log);
+        using var locker = _temp.OpenRaw();
+        // SQLite docs, "BEGIN TRANSACTION" (from memory): EXCLUSIVE takes the write lock at once and in WAL mode acts like
+        // IMMEDIATE, so readers go on while other writers get SQLITE_BUSY ("database is locked").
+        locker.Execute("BEGIN EXCLUSIVE");
+
+        for (var i = 0; i < 100; i++) writer.Post(SampleRows.Journal(i, "FIC-120"));
+        var flushed = writer.FlushAsync();
+
+        await Eventually.TrueAsync(() => writer.Fault is not null, "fault reported");
+        Assert.Equal(clock.GetUtcNow(), writer.Fault!.Since);
+        Assert.Contains("locked", writer.Fault.Text);
+        Assert.Equal(100, writer.Counters.Backlog);
+        Assert.Equal(0, writer.Counters.Written);
+        Assert.True(writer.Counters.Failed >= 1);
+        Assert.NotNull(writer.Counters.LastError);
+        Assert.False(flushed.IsCompleted);
+
+        // Still locked: advancing the clock gives more failing retries, nothing is lost.
+        var failedBefore = writer.Counters.Failed;
+        await Eventually.TrueAsync(() => writer.Counters.Failed > failedBefore, "a further failing retry",
+            () => clock.Advance(TimeSpan.FromSeconds(1)));
+        Assert.Equal(100, writer.Counters.Backlog);
+        Assert.NotNull(writer.Fault);
+
+        locker.Execute("ROLLBACK");
+        for (var i = 100; i < 150; i++) writer.Post(SampleRows.Journal(i, "FIC-120"));
+        await Eventually.TrueAsync(() => writer.Counters.Written == 150, "backlog and later posts written",
+            () => clock.Advance(TimeSpan.FromSeconds(30)));
+
+        await flushed;
+        Assert.Null(writer.Fault);
+        Assert.Equal(0, writer.Counters.Pending);
+        Assert.Equal(0, writer.Counters.Dropped);
+        using var raw = _temp.OpenRaw();
+        Assert.Equal(150, raw.ExecuteScalar<long>("SELECT count(*) FROM alarm_journal WHERE loop_id = 'FIC-120'"));
+        Assert.Equal("ok", raw.ExecuteScalar<string>("PRAGMA integrity_check"));
+        // One error when the fault starts (2001), quieter retries (2002), one note on recovery (2003).
+        Assert.Equal(1, log.Entries.Count(e => e.EventId == 2001 && e.Level == LogLevel.Error));
+        Assert.Contains(log.Entries, e => e.EventId == 2002);
+        Assert.Equal(1, log.Entries.Count(e => e.EventId == 2003));
+    }
+
+    [Fact]
+    public async Task DisposeAsync_FaultNeverClears_GivesUpAfterShutdownTimeoutAndCountsLost()
+    {
+        using var db = LoopWatchDatabase.Open(_temp.Options(o => o with
+        {
+            BusyTimeout = TimeSpan.FromSeconds(1), ShutdownTimeout = TimeSpan.FromSeconds(10),
+        }));
+        var clock = new FakeTimeProvider();
+        var log = new RecordingLogger<StorageWriter>();
+        var writer = new StorageWriter(db, clock, log);
+        using var locker = _temp.OpenRaw();
+        locker.Execute("BEGIN EXCLUSIVE");
+        for (var i = 0; i < 20; i++) writer.Post(SampleRows.Journal(i));
+        await Eventually.TrueAsync(() => writer.Fault is not null, "fault reported");
+
+        var disposing = writer.DisposeAsync().AsTask();
+        await Eventually.TrueAsync(() => disposing.IsCompleted, "dispose gives up",
+            () => clock.Advance(TimeSpan.FromSeconds(5)));
+
+        await disposing;
+        Assert.Equal(20, writer.Counters.Dropped);
+        Assert.Equal(0, writer.Counters.Written);
+        Assert.Contains(log.Entries, e => e.EventId == 2005 && e.Message.Contains("20"));
+        locker.Execute("ROLLBACK");
+    }
+}

@@ -1,3 +1,4 @@
+using System.Net.Http.Json;
 using System.Text.Json;
 using LoopWatch.Agent.Analyze;
 using LoopWatch.Agent.Plant;
@@ -34,6 +35,7 @@ public sealed class MqttRoundTripTests
         await Eventually.Until(() => agent.HealthAsync(), h => h.GetProperty("ingest").GetProperty("accepted").GetInt64() >= rec.Values.Count,
             TimeSpan.FromSeconds(60), "every value taken");
         var api = await agent.LoopsAsync();
+        var liveAlarms = await agent.Http.GetFromJsonAsync<JsonElement>("/api/alarms?state=all");
 
         using var run = new AnalyzeRun();
         var errors = new List<string>();
@@ -49,6 +51,13 @@ public sealed class MqttRoundTripTests
             Assert.Equal(live.GetProperty("stats").GetRawText(), offline.GetProperty("stats").GetRawText());
             Assert.Equal(live.GetProperty("findings").GetRawText(), offline.GetProperty("findings").GetRawText());
         }
+        // The alarms the agent raised are the alarms analyze reports: same ids, states and raise times.
+        var agentAlarms = liveAlarms.GetProperty("alarms").EnumerateArray()
+            .Select(a => $"{a.GetProperty("id").GetString()} {a.GetProperty("state").GetString()} {a.GetProperty("raised").GetRawText()}").Order().ToList();
+        var analyzeAlarms = result.Alarms.Alarms().Select(a => $"{a.Id} {LoopWatch.Agent.Alarms.AlarmNames.Of(a.State)} {(a.RaisedTicks == 0 ? "null" : JsonSerializer.Serialize(new DateTimeOffset(a.RaisedTicks, TimeSpan.Zero), ApiJson.Options))}").Order().ToList();
+        Assert.Equal(agentAlarms, analyzeAlarms);
+        Assert.Contains(agentAlarms, a => a.StartsWith("PIC-201:sustained-offset unacknowledged", StringComparison.Ordinal));
+
         // The comparison is not empty: the offset detector raised on PIC-201 in both (Seborg et al.: P-only control leaves an offset).
         Assert.Contains("sustained-offset", api.EnumerateArray().Single(l => l.GetProperty("id").GetString() == "PIC-201").GetProperty("findings").GetRawText());
         Assert.Contains(result.Loops.Single(l => l.Spec.Id == "PIC-201").Findings, f => f.Kind == "sustained-offset");

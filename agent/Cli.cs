@@ -15,10 +15,11 @@ public static class Cli
           loopwatch check --config FILE                                   check a configuration and exit
           loopwatch analyze --config FILE [--format text|json|csv|html] [--out FILE] [--from T] [--to T] [--strict] FILE...
                                                                           historian CSV files through the same analytics
+          loopwatch user add NAME --role viewer|operator|maintenance|admin [--data-dir DIR]   add a dashboard user
         """;
 
     /// <summary>Runs one verb to completion; 0 ok, 1 runtime failure, 2 usage or configuration error.</summary>
-    public static async Task<int> RunAsync(string[] args, TextWriter stdout, TextWriter stderr, CancellationToken stop = default)
+    public static async Task<int> RunAsync(string[] args, TextWriter stdout, TextWriter stderr, CancellationToken stop = default, TextReader? stdin = null)
     {
         if (args.Length == 0 || args[0] is "-h" or "--help" or "help") { stdout.WriteLine(Usage); return args.Length == 0 ? 2 : 0; }
         var errors = new List<string>();
@@ -32,6 +33,8 @@ public static class Cli
                 return await RunAgentAsync(verb, cli, errors, stdout, stderr, stop);
             case "analyze":
                 return Analyze.AnalyzeCommand.Run(args.Skip(1), stdout, stderr);
+            case "user":
+                return await UserVerb.RunAsync(cli, errors, stdin ?? Console.In, stdout, stderr);
             default:
                 stderr.WriteLine($"loopwatch: unknown verb '{verb}'");
                 stderr.WriteLine(Usage);

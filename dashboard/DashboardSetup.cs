@@ -65,6 +65,9 @@ public static class DashboardSetup
         app.UseAuthorization();
         app.MapGet("/assets/site.css", () => Results.Text(Css.Value, "text/css")).AllowAnonymous();
         app.MapRazorPages();
+        // Same-origin scripts and API clients fetch a token for the signed-in user here; other origins cannot read it.
+        app.MapGet("/api/token", (Microsoft.AspNetCore.Antiforgery.IAntiforgery af, HttpContext c) =>
+            Results.Json(new { token = af.GetAndStoreTokens(c).RequestToken, header = TokenHeader }));
         LoopApi.Map(app);
         AlarmApi.Map(app);
         return app;

@@ -1,13 +1,16 @@
 using LoopWatch.Analytics.Configuration;
 using LoopWatch.Analytics.Findings;
 using LoopWatch.Analytics.Monitoring;
+using LoopWatch.Analytics.Reversals;
 using LoopWatch.Analytics.Sampling;
+using LoopWatch.Analytics.Statistics;
 
 namespace LoopWatch.Agent.Analyze;
 
 /// <summary>
 /// Sits last in a loop's detector list during offline analysis and adds up whole-span figures from every aligned
-/// sample: error moments (Welford), output reversals and travel with the loop's reversal deadband, saturation, time in
+/// sample: error moments (<see cref="RunningMoments"/>), output reversals and travel with the loop's reversal deadband
+/// (<see cref="ReversalCounter"/>, the live detector's filter), saturation, time in
 /// auto, on-off starts, duty, cycle period and PV swing; and feeds the decimated trend. Allocates nothing per sample.
 /// </summary>
 public sealed class SpanAccumulator : LoopDetector
@@ -16,13 +19,9 @@ public sealed class SpanAccumulator : LoopDetector
     private const double SaturatedLow = 0.5, SaturatedHigh = 99.5;
 
     private readonly LoopSpec _spec;
-    private readonly double _deadband;
-    private long _samples, _errorN, _auto, _saturated, _on;
-    private double _errorMean, _errorM2;
-    private bool _opStarted;
-    private int _direction;
-    private double _anchor, _extreme, _travel;
-    private long _reversals;
+    private readonly RunningMoments _error = new();
+    private readonly ReversalCounter _output;
+    private long _samples, _auto, _saturated, _on;
     private bool _stateKnown, _isOn;
     private long _starts, _firstStartTicks, _lastStartTicks;
     private double _pvMin = double.PositiveInfinity, _pvMax = double.NegativeInfinity, _swingSum;
@@ -32,7 +31,7 @@ public sealed class SpanAccumulator : LoopDetector
     public SpanAccumulator(LoopSpec spec, int trendPoints = 600)
     {
         _spec = spec;
-        _deadband = spec.Limits.ReversalDeadbandPct;
+        _output = new ReversalCounter(spec.Limits.ReversalDeadbandPct);
         Trend = new TrendDecimator(trendPoints, TimeSpan.FromSeconds(spec.Limits.SampleSeconds));
     }
 
@@ -59,29 +58,8 @@ public sealed class SpanAccumulator : LoopDetector
     private void StepPid(in AlignedSample s)
     {
         if (s.Op <= SaturatedLow || s.Op >= SaturatedHigh) _saturated++;
-        if (s.InAuto && s.PvGood && double.IsFinite(s.Sp))
-        {
-            var e = (s.Sp - s.Pv) / _spec.Span * 100.0;
-            _errorN++;
-            var d = e - _errorMean;
-            _errorMean += d / _errorN;
-            _errorM2 += d * (e - _errorMean);
-        }
-        // Deadband turning-point filter on the output: a move back of more than the deadband from the last extreme is a reversal.
-        var v = s.Op;
-        if (!_opStarted) { _opStarted = true; _anchor = _extreme = v; return; }
-        if (_direction == 0)
-        {
-            if (Math.Abs(v - _anchor) > _deadband) { _direction = v > _anchor ? 1 : -1; _travel += Math.Abs(v - _anchor); _extreme = v; }
-        }
-        else if ((v - _extreme) * _direction > 0) { _travel += Math.Abs(v - _extreme); _extreme = v; }
-        else if (Math.Abs(v - _extreme) > _deadband)
-        {
-            _travel += Math.Abs(v - _extreme);
-            _direction = -_direction;
-            _extreme = v;
-            _reversals++;
-        }
+        if (s.InAuto && s.PvGood && double.IsFinite(s.Sp)) _error.Add((s.Sp - s.Pv) / _spec.Span * 100.0);
+        _output.Step(s.Ticks, s.Op);
     }
 
     private void StepOnOff(in AlignedSample s)
@@ -120,14 +98,16 @@ public sealed class SpanAccumulator : LoopDetector
         var pct = 100.0 / _samples;
         if (_spec.Kind == LoopKind.Pid)
         {
+            var error = _error.Value;
+            var moved = _output.Counters;
             return stats with
             {
-                MeanErrorPct = _errorN > 0 ? _errorMean : null,
-                ErrorStdPct = _errorN > 1 ? Math.Sqrt(_errorM2 / (_errorN - 1)) : null,
-                Reversals = _reversals,
-                ReversalsPerHour = hours > 0 ? _reversals / hours : null,
-                TravelPct = _travel,
-                TravelPctPerHour = hours > 0 ? _travel / hours : null,
+                MeanErrorPct = error.Count > 0 ? error.Mean : null,
+                ErrorStdPct = error.Count > 1 ? error.StdDev : null,
+                Reversals = moved.Reversals,
+                ReversalsPerHour = hours > 0 ? moved.Reversals / hours : null,
+                TravelPct = moved.TravelPct,
+                TravelPctPerHour = hours > 0 ? moved.TravelPct / hours : null,
                 SaturatedPct = _saturated * pct,
                 TimeInAutoPct = _auto * pct,
             };

@@ -1,6 +1,9 @@
 using LoopWatch.Analytics.Configuration;
+using LoopWatch.Analytics.OnOff;
 using LoopWatch.Analytics.Offset;
 using LoopWatch.Analytics.Oscillation;
+using LoopWatch.Analytics.Quality;
+using LoopWatch.Analytics.Reversals;
 
 namespace LoopWatch.Analytics.Monitoring;
 
@@ -11,12 +14,18 @@ public static class DetectorSet
     public static IReadOnlyList<LoopDetector> For(LoopSpec spec)
     {
         var list = new List<LoopDetector>();
+        // Data quality first, then the loop-kind families.
+        list.Add(new OutOfRangeDetector(spec));
+        list.Add(new FrozenDetector(spec));
         if (spec.Kind == LoopKind.Pid)
         {
             // Oscillation first: the offset detector reads its finding from the board in the same sample.
             list.Add(new OscillationDetector(spec));
             list.Add(new OffsetDetector(spec));
+            list.Add(new ReversalDetector(spec));
+            list.Add(new SaturationDetector(spec));
         }
+        else list.Add(new ShortCyclingDetector(spec));
         return list;
     }
 }

@@ -54,8 +54,11 @@ public sealed class ReferenceTests
             csv.Append(CultureInfo.InvariantCulture, $"{at},ref/FIC-702/pv,50\n{at},ref/FIC-702/sp,50\n{at},ref/FIC-702/op,{op:R}\n");
         }
         using var run = new AnalyzeRun();
-        var report = await run.Json(run.File("loops.json", PlantRecording.ConfigFor([options])), run.File("fic702.csv", csv.ToString()));
+        // Limit 60 reversals an hour, so the detector's finding can be checked too (119 an hour is above it).
+        var config = PlantRecording.ConfigFor([options], _ => new { MaxReversalsPerHour = 60 });
+        var report = await run.Json(run.File("loops.json", config), run.File("fic702.csv", csv.ToString()));
         var stats = AnalyzeRun.Loop(report, "FIC-702").GetProperty("stats");
+        Assert.Contains(AnalyzeRun.Loop(report, "FIC-702").GetProperty("findings").EnumerateArray(), f => f.GetProperty("kind").GetString() == "excessive-reversals");
         // A triangle wave turns twice per period (geometry, exact): turning points at 30, 60, ..., 3570 s; the start is no reversal.
         Assert.Equal(119, stats.GetProperty("reversals").GetInt64());
         Assert.Equal(119, stats.GetProperty("reversals_per_hour").GetDouble(), 1e-9);
@@ -91,5 +94,9 @@ public sealed class ReferenceTests
         Assert.Equal(3600 / cycle, stats.GetProperty("starts_per_hour").GetDouble(), 0.6);
         Assert.Equal(100 * v / (pumpRate - inflow) / cycle, stats.GetProperty("duty_pct").GetDouble(), 1.0);
         Assert.Equal(sump.Starts, stats.GetProperty("starts").GetInt64());
+        // Above the level default of 10 starts an hour (README, limit defaults): short cycling, and the agent would have raised its alarm.
+        var loop = AnalyzeRun.Loop(report, "LIC-703");
+        Assert.Contains(loop.GetProperty("findings").EnumerateArray(), f => f.GetProperty("kind").GetString() == "short-cycling");
+        Assert.Contains(loop.GetProperty("alarms").EnumerateArray(), a => a.GetProperty("kind").GetString() == "short-cycling" && a.GetProperty("activations").GetInt32() >= 1);
     }
 }

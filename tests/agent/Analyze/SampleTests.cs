@@ -46,6 +46,7 @@ public sealed class SampleTests
         // The demo plant's placed faults (README, "The demo plant"): proportional-only offset, tuning near the ultimate gain.
         Assert.Contains("sustained-offset", kinds("PIC-201"));
         Assert.Contains("oscillation", kinds("TIC-202"));
+        Assert.Contains("short-cycling", kinds("LIC-301")); // dead zone too narrow: about 30 starts an hour against 10
         // FIC-104 is put in manual for 40 of the first 120 minutes (from 30 to 70 min).
         var auto = AnalyzeRun.Loop(report, "FIC-104").GetProperty("stats").GetProperty("time_in_auto_pct").GetDouble();
         Assert.InRange(auto, 100 - 40.0 / 120 * 100 - 0.1, 100 - 40.0 / 120 * 100 + 0.1);

@@ -1,0 +1,44 @@
+using LoopWatch.Analytics.OnOff;
+using LoopWatch.Analytics.Reversals;
+using LoopWatch.Analytics.Tests.Reversals;
+
+namespace LoopWatch.Analytics.Tests.Monitoring;
+
+public sealed class DataGapTests
+{
+    [Fact]
+    public void OnOffLoop_StaleGap_DoesNotCountTheGapAsACycle()
+    {
+        var spec = LoopRig.Define("on-off", "level", min: 0, max: 3);
+        var detector = new ShortCyclingDetector(spec);
+        var rig = new LoopRig(spec, detector);
+        void Cycles(long from, int count)
+        {
+            for (var s = from; s < from + count * 300L; s++) rig.Feed(s, 1.2, double.NaN, (s - from) % 300 < 100 ? 100 : 0);
+        }
+        Cycles(0, 8);
+        // Ten minutes without data (beyond the 30 s stale default): the cycle open at the gap is dropped.
+        Cycles(2400 + 600, 4);
+        // Before: 7 starts seen (the first sample shows the pump on, not its start), 6 complete cycles. After: the first
+        // sample again tells no start, so 3 starts and 2 cycles; a cycle across the gap would make it 10.
+        Assert.Equal(6 + 2, detector.Tracker.CompletedCycles);
+        // Square wave of 300 s (definition of the period, common practice, no source).
+        Assert.Equal(300, detector.Figures.PeriodS!.Value, 9);
+    }
+
+    [Fact]
+    public void PidLoop_StaleGap_RestartsTheRateWindowButKeepsTheLifetimeCounters()
+    {
+        var spec = LoopRig.Define("pid", "flow");
+        var detector = new ReversalDetector(spec);
+        var rig = new LoopRig(spec, detector);
+        for (var s = 0; s <= 20 * 30; s++) rig.Feed(s, 50, 50, ReversalCounterTests.Triangle(s, 3, 20));
+        var before = detector.Output.Counters;
+        rig.Feed(20 * 30 + 3600, 50, 50, 47);
+        rig.Feed(20 * 30 + 3601, 50, 50, 47);
+        Assert.Equal(before.Reversals, detector.Output.Counters.Reversals);
+        // After the restart the window holds one second, without any reversal.
+        Assert.Equal(0, detector.Output.ReversalsPerHour);
+        Assert.InRange(detector.Output.WindowSeconds, 0.5, 1.5);
+    }
+}

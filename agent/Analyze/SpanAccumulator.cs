@@ -49,7 +49,8 @@ public sealed class SpanAccumulator : LoopDetector
     {
         if (_samples++ == 0) FirstTicks = sample.Ticks;
         LastTicks = sample.Ticks;
-        Trend.Add(sample.Ticks, sample.Pv, sample.Sp, sample.Op);
+        // On-off outputs come as 0/1 or 0/100; the trend's OP axis is %, so draw on as 100.
+        Trend.Add(sample.Ticks, sample.Pv, sample.Sp, _spec.Kind == LoopKind.OnOff ? (sample.Op >= 0.5 ? 100 : 0) : sample.Op);
         if (sample.InAuto) _auto++;
         if (_spec.Kind == LoopKind.Pid) StepPid(sample);
         else StepOnOff(sample);

@@ -13,6 +13,8 @@ public static class Cli
           loopwatch demo  [--speed N] [--data-dir DIR] [--config FILE]   simulated plant through the real agent
           loopwatch run   --config FILE [--data-dir DIR]                  watch the loops the configuration names
           loopwatch check --config FILE                                   check a configuration and exit
+          loopwatch analyze --config FILE [--format text|json|csv|html] [--out FILE] [--from T] [--to T] [--strict] FILE...
+                                                                          historian CSV files through the same analytics
           loopwatch user add NAME --role viewer|operator|maintenance|admin [--data-dir DIR]   add a dashboard user
         """;
 
@@ -29,6 +31,8 @@ public static class Cli
             case "run":
             case "check":
                 return await RunAgentAsync(verb, cli, errors, stdout, stderr, stop);
+            case "analyze":
+                return Analyze.AnalyzeCommand.Run(args.Skip(1), stdout, stderr);
             case "user":
                 return await UserVerb.RunAsync(cli, errors, stdin ?? Console.In, stdout, stderr);
             default:

@@ -95,10 +95,12 @@ public sealed class PlantState : IPlantView
     }
 
     /// <summary>Moves every loop's clock to the plant's time now.</summary>
-    public void AdvanceAll()
+    public void AdvanceAll() => AdvanceTo(Clock.NowTicks);
+
+    /// <summary>Moves every loop's clock to event time <paramref name="nowTicks"/> (offline analysis drives it from the file's timestamps).</summary>
+    public void AdvanceTo(long nowTicks)
     {
-        var now = Clock.NowTicks;
-        foreach (var cell in _cells) cell.Advance(now);
+        foreach (var cell in _cells) cell.Advance(nowTicks);
     }
 
     /// <inheritdoc />

@@ -72,12 +72,16 @@ public static class AgentHost
         });
         services.AddSingleton<IPlantView>(sp => sp.GetRequiredService<PlantState>());
         services.AddSingleton<IAlarmView, LiveAlarmView>();
+        services.AddSingleton(opts.Valves);
+        services.AddSingleton<Valves.ValveWear>();
+        services.AddSingleton<IValveView>(sp => sp.GetRequiredService<Valves.ValveWear>());
         services.AddSingleton<IActionGuard, Dashboard.Access.RoleGuard>();
 
         // Hosted services start in registration order and stop in reverse: storage opens first and closes last,
         // stored alarm states are back before ingest, the broker runs before anyone connects to it.
         services.AddHostedService<StorageLifetime>();
         services.AddHostedService<AlarmRestore>();
+        services.AddHostedService<Valves.ValveCounterSaver>();
         if (opts.Broker.Embedded) services.AddHostedService<EmbeddedBroker>();
         services.AddHostedService<MqttIngest>();
         services.AddHostedService<PlantTicker>();

@@ -11,6 +11,8 @@ public sealed class AgentOptions
     /// <summary>Folder of the database; default <c>./data</c>.</summary>
     public string DataDir { get; set; } = "data";
 
+    public ValveOptions Valves { get; set; } = new();
+
     public List<LoopOptions> Loops { get; set; } = [];
 
     public AlarmSystemOptions AlarmSystem { get; set; } = new();

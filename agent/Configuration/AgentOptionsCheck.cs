@@ -21,6 +21,9 @@ public static class AgentOptionsCheck
         }
         if (string.IsNullOrWhiteSpace(options.Dashboard.Urls)) errors.Add("Dashboard:Urls: is missing");
         if (string.IsNullOrWhiteSpace(options.DataDir)) errors.Add("DataDir: is missing");
+        if (options.Valves.ServiceAfterReversals < 1) errors.Add("Valves:ServiceAfterReversals: must be at least 1");
+        if (!(options.Valves.ServiceAfterStrokes > 0)) errors.Add("Valves:ServiceAfterStrokes: must be a positive number");
+        if (!(options.Valves.SaveEverySeconds >= 1)) errors.Add("Valves:SaveEverySeconds: must be at least 1");
         if (options.Loops.Count == 0) errors.Add("Loops: no loop is configured");
         errors.AddRange(options.AlarmSystem.Check(options.Loops.SelectMany(l => new[] { l.Pv?.Tag, l.Sp?.Tag, l.Op?.Tag, l.Mode?.Tag, l.Position?.Tag }).OfType<string>()));
         return LoopOptionsCheck.Check(options.Loops, errors);

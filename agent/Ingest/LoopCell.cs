@@ -18,7 +18,11 @@ public sealed class LoopCell
         // The hooks read statistics through the monitor, which exists only after the list is built.
         if (hooks is not null) detectors.AddRange(hooks(spec, () => Monitor!.Statistics()));
         Monitor = new LoopMonitor(spec, sink, detectors);
+        Reversals = detectors.OfType<Analytics.Reversals.ReversalDetector>().FirstOrDefault();
     }
+
+    /// <summary>The final-element counters of the loop (pid loops); touch only under <see cref="Read{T}"/>.</summary>
+    internal Analytics.Reversals.ReversalDetector? Reversals { get; }
 
     /// <summary>The analytics of the loop; touch only under <see cref="Read{T}"/> or through the cell's methods.</summary>
     internal LoopMonitor Monitor { get; }

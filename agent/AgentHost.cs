@@ -94,7 +94,9 @@ public static class AgentHost
             services.AddSingleton(new DemoPlant());
             services.AddHostedService<PlantPublisher>();
         }
-        services.AddLoopWatchDashboard(new Dashboard.Access.DashboardAccess(opts.Dashboard.RequireLoginToView), Path.Combine(Path.GetFullPath(opts.DataDir), "keys"));
+        var d = opts.Dashboard;
+        services.AddLoopWatchDashboard(new Dashboard.Access.DashboardAccess(d.RequireLoginToView), Path.Combine(Path.GetFullPath(opts.DataDir), "keys"),
+            new Dashboard.Reports.ShiftSchedule(d.ShiftStartHour, d.ShiftHours, TimeZoneInfo.FindSystemTimeZoneById(d.TimeZone)));
         configure?.Invoke(services);
 
         var app = builder.Build();

@@ -19,6 +19,10 @@ public static class AgentOptionsCheck
             if (!Uri.TryCreate(url, UriKind.Absolute, out var uri) || (uri.Scheme != "http" && uri.Scheme != "https"))
                 errors.Add($"Dashboard:Urls: '{url}' is not an http(s) address");
         }
+        var d = options.Dashboard;
+        if (d.ShiftStartHour is < 0 or > 23) errors.Add($"Dashboard:ShiftStartHour: {d.ShiftStartHour} is not an hour of the day (0-23)");
+        if (d.ShiftHours is < 1 or > 24 || 24 % d.ShiftHours != 0) errors.Add($"Dashboard:ShiftHours: {d.ShiftHours} does not divide the day (1, 2, 3, 4, 6, 8, 12 or 24)");
+        if (!TimeZoneInfo.TryFindSystemTimeZoneById(d.TimeZone ?? "", out _)) errors.Add($"Dashboard:TimeZone: '{d.TimeZone}' is not a known time zone");
         if (string.IsNullOrWhiteSpace(options.Dashboard.Urls)) errors.Add("Dashboard:Urls: is missing");
         if (string.IsNullOrWhiteSpace(options.DataDir)) errors.Add("DataDir: is missing");
         if (options.Valves.ServiceAfterReversals < 1) errors.Add("Valves:ServiceAfterReversals: must be at least 1");

@@ -7,4 +7,13 @@ public sealed class DashboardOptions
 
     /// <summary>When true, even viewing needs a login; changes always need one. Default false.</summary>
     public bool RequireLoginToView { get; set; }
+
+    /// <summary>Hour of day (plant time zone) the first shift starts; default 6.</summary>
+    public int ShiftStartHour { get; set; } = 6;
+
+    /// <summary>Length of a shift in hours, dividing 24 (8 for three shifts, 12 for two); default 8.</summary>
+    public int ShiftHours { get; set; } = 8;
+
+    /// <summary>Plant time zone (IANA id) for shifts and weekly summaries; default UTC.</summary>
+    public string TimeZone { get; set; } = "UTC";
 }

@@ -30,6 +30,10 @@ public sealed class ConfigurationErrorTests
     [InlineData("\"Min\": 0, \"Max\": 250", "\"Min\": 250, \"Max\": 250", "Loops:0 (FIC-101): Pv:Max")]
     [InlineData("\"Process\": \"flow\"", "\"Process\": \"viscosity\"", "Loops:0 (FIC-101): Process")]
     [InlineData("\"Op\": { \"Tag\": \"a/op\" }", "\"Op\": { \"Tag\": \"a/op\" }, \"Limits\": { \"OffsetPct\": -1 }", "Loops:0 (FIC-101): Limits:OffsetPct")]
+    [InlineData("{ \"LoopWatch\": {", "{ \"LoopWatch\": { \"Dashboard\": { \"ShiftHours\": 7 },", "Dashboard:ShiftHours")]
+    [InlineData("{ \"LoopWatch\": {", "{ \"LoopWatch\": { \"Dashboard\": { \"TimeZone\": \"Mars/Olympus\" },", "Dashboard:TimeZone")]
+    [InlineData("{ \"LoopWatch\": {", "{ \"LoopWatch\": { \"Broker\": { \"Port\": 70000 },", "Broker:Port")]
+    [InlineData("{ \"LoopWatch\": {", "{ \"LoopWatch\": { \"Valves\": { \"ServiceAfterStrokes\": 0 },", "Valves:ServiceAfterStrokes")]
     public async Task An_invalid_setting_exits_2_naming_loop_and_key(string from, string to, string expected)
     {
         var (code, err) = await Check(Good.Replace(from, to));

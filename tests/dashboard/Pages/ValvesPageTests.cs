@@ -2,7 +2,6 @@ using System.Net;
 using LoopWatch.Agent.Ingest;
 using LoopWatch.Agent.Storage;
 using LoopWatch.Agent.Tests.Infrastructure;
-using LoopWatch.Analytics.Sampling;
 using LoopWatch.Dashboard.Access;
 using LoopWatch.Dashboard.Tests.Infrastructure;
 using Microsoft.Extensions.DependencyInjection;
@@ -11,23 +10,11 @@ namespace LoopWatch.Dashboard.Tests.Pages;
 
 public sealed class ValvesPageTests
 {
-    private static readonly long T0 = new DateTimeOffset(2026, 3, 2, 6, 0, 0, TimeSpan.Zero).UtcTicks;
-
     /// <summary>Twenty periods of a 30-70 % triangle on the output (60 s period), through the agent's own ingest path.</summary>
     private static async Task<RunningAgent> AgentWithTriangleAsync()
     {
         var agent = await RunningAgent.StartAsync([TestLoops.Pid("FV-960")], embedded: true, brokerPort: FreePort.Next());
-        var plant = agent.App.Services.GetRequiredService<PlantState>();
-        var routes = plant.Routes;
-        for (var s = 0; s <= 1200; s++)
-        {
-            var ticks = T0 + s * TimeSpan.TicksPerSecond;
-            var phase = s % 60;
-            var op = phase < 30 ? 30 + 40 * phase / 30.0 : 70 - 40 * (phase - 30) / 30.0;
-            plant.Take(routes["test/FV-960/pv"], ticks, 100, SampleQuality.Good);
-            plant.Take(routes["test/FV-960/sp"], ticks, 100, SampleQuality.Good);
-            plant.Take(routes["test/FV-960/op"], ticks, op, SampleQuality.Good);
-        }
+        TriangleFeed.Run(agent.App.Services.GetRequiredService<PlantState>(), "FV-960", 1200);
         return agent;
     }
 

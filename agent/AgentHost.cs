@@ -109,5 +109,10 @@ public static class AgentHost
         app.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()?.Addresses.ToList() ?? [];
 
     private static Action<Analytics.Findings.FindingChange> FindingLog(ILogger log) =>
-        change => AgentLog.FindingChanged(log, change.LoopId, change.Change.ToString().ToLowerInvariant(), change.Finding.Kind);
+        change =>
+        {
+            // Raised and ended are news for the log; updated figures arrive often and stay at debug level.
+            if (change.Change == Analytics.Findings.FindingChangeKind.Updated) AgentLog.FindingUpdated(log, change.LoopId, change.Finding.Kind);
+            else AgentLog.FindingChanged(log, change.LoopId, change.Change.ToString().ToLowerInvariant(), change.Finding.Kind);
+        };
 }

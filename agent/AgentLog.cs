@@ -21,6 +21,9 @@ public static partial class AgentLog
     [LoggerMessage(1005, LogLevel.Information, "Finding {Change} on {LoopId}: {Kind}")]
     public static partial void FindingChanged(ILogger logger, string loopId, string change, string kind);
 
+    [LoggerMessage(1007, LogLevel.Debug, "Finding updated on {LoopId}: {Kind}")]
+    public static partial void FindingUpdated(ILogger logger, string loopId, string kind);
+
     [LoggerMessage(1006, LogLevel.Error, "Detector failed on loop {LoopId}; the sample is skipped")]
     public static partial void DetectorFailed(ILogger logger, Exception error, string loopId);
 

@@ -18,7 +18,15 @@ public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSch
     public async Task<IActionResult> OnGetAsync(string? week, CancellationToken ct)
     {
         if (!TryWeek(week, out var w)) return BadRequest("week must be a date yyyy-MM-dd (the Monday of an ISO week)");
-        Summary = new WeekOverWeek(await SummaryAsync(w, ct), await SummaryAsync(w.Before(), ct));
+        var current = await SummaryAsync(w, ct);
+        if (string.IsNullOrEmpty(week) && current.Hours == 0)
+        {
+            // A new installation has no complete week yet: show the week so far rather than an empty page.
+            var thisWeek = ReportWeek.Containing(DateOnly.FromDateTime(TimeZoneInfo.ConvertTime(Now, schedule.Zone).DateTime), schedule.Zone);
+            var soFar = await SummaryAsync(thisWeek, ct);
+            if (soFar.Hours > 0) (w, current) = (thisWeek, soFar);
+        }
+        Summary = new WeekOverWeek(current, await SummaryAsync(w.Before(), ct));
         IsComplete = w.End <= Now;
         return Page();
     }

@@ -36,7 +36,7 @@ public sealed class DemoPlant
             Pid("FIC-102", "Filter backwash flow (sticky valve)", "Filtration", "flow", 0, 400, "m3/h", true, new PidLoopSetup
             {
                 Kc = 0.5, TiSeconds = 8, TauSeconds = 5, DeadTimeSeconds = 1, SetPointPct = 45,
-                StictionS = 6, StictionJ = 3, NoiseSigmaPct = 0.05, LoadSteps = [(60, 3)], LoadAmplitudePct = 3, LoadMeanGapSeconds = 300, LoadMeanHoldSeconds = 300, Seed = seed + 40,
+                StictionS = 6, StictionJ = 3, NoiseSigmaPct = 0.05, LoadSteps = [(60, 3)], LoadAmplitudePct = 3, LoadMeanGapSeconds = 900, LoadMeanHoldSeconds = 900, Seed = seed + 40,
             }),
             Pid("TIC-202", "Boiler feedwater preheater outlet temperature", "Boiler house", "temperature", 0, 200, "degC", false, new PidLoopSetup
             {

@@ -77,9 +77,8 @@ public sealed class DemoScenarioTests
     {
         var osc = Run.Value["FIC-102"].Monitor.Board.Active.OfType<OscillationFinding>().SingleOrDefault();
         Assert.NotNull(osc);
-        // Horch (1999): a sticky valve gives an odd cross-correlation, never the even one of tuning. Under the demo's
-        // random loads the phase sits between the two bands, so the hint may stay "unknown"; it must not blame tuning.
-        Assert.NotEqual(CauseHints.TuningOrDisturbance, osc.CauseHint);
+        // Horch (1999): a sticky valve gives an odd cross-correlation of output and PV.
+        Assert.Equal(CauseHints.Stiction, osc.CauseHint);
         Assert.True(osc.AmplitudePct >= 1, $"{osc}");
     }
 

@@ -29,6 +29,16 @@ public sealed class UserStore(LoopWatchDatabase database)
         return null;
     }
 
+    /// <summary>Every user, by name; callers show names and roles only.</summary>
+    public async Task<IReadOnlyList<UserRow>> ListAsync(CancellationToken cancellationToken = default)
+    {
+        await using var connection = database.OpenConnection();
+        var rows = await connection.QueryAsync<UserRow>(new CommandDefinition(
+            "SELECT name AS Name, role AS Role, password_hash AS PasswordHash, created_ms AS CreatedMs FROM users ORDER BY name",
+            cancellationToken: cancellationToken)).ConfigureAwait(false);
+        return rows.AsList();
+    }
+
     /// <summary>Replaces a user's password hash and role; false when no such user.</summary>
     public async Task<bool> UpdateAsync(UserRow user, CancellationToken cancellationToken = default)
     {

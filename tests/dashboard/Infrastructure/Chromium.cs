@@ -45,6 +45,15 @@ public sealed class Chromium : IAsyncDisposable
         return new Chromium(playwright, browser);
     }
 
+    /// <summary>A new page whose waits allow for a loaded 2-core CI machine (Playwright's default is 30 s).</summary>
+    public async Task<IPage> NewPageAsync(BrowserNewPageOptions? options = null)
+    {
+        var page = await Browser.NewPageAsync(options);
+        page.SetDefaultTimeout(120_000);
+        page.SetDefaultNavigationTimeout(120_000);
+        return page;
+    }
+
     public static async Task ShotAsync(IPage page, string name) =>
         await page.ScreenshotAsync(new PageScreenshotOptions { Path = System.IO.Path.Combine(ArtefactDir, name + ".png"), FullPage = true });
 

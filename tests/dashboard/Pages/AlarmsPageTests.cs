@@ -14,7 +14,7 @@ public sealed class AlarmsPageTests
         await using var agent = await PageRig.StartWithStaleAlarmsAsync(PageRig.FastStale("FIC-980"));
         await PageRig.AddUserAsync(agent, "op.one", Roles.Operator);
         await using var chromium = await Chromium.LaunchAsync();
-        var page = await chromium.Browser.NewPageAsync();
+        var page = await chromium.NewPageAsync();
 
         // Not signed in: the alarm is listed, without forms.
         await page.GotoAsync(agent.Http.BaseAddress + "alarms");

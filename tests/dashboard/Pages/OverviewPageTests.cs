@@ -17,7 +17,7 @@ public sealed class OverviewPageTests
         await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("accepted").GetInt64(), n => n > 2000,
             what: "demo data flowing");
         await using var chromium = await Chromium.LaunchAsync();
-        var page = await chromium.Browser.NewPageAsync();
+        var page = await chromium.NewPageAsync();
         await page.GotoAsync(agent.Http.BaseAddress + "");
         var rows = await page.Locator("#loops tbody tr").CountAsync();
         Assert.Equal(new DemoPlant().Configuration.Count, rows);
@@ -46,7 +46,7 @@ public sealed class OverviewPageTests
         var port = FreePort.Next();
         await using var agent = await RunningAgent.StartAsync([hostile], embedded: true, brokerPort: port);
         await using var chromium = await Chromium.LaunchAsync();
-        var page = await chromium.Browser.NewPageAsync();
+        var page = await chromium.NewPageAsync();
         var dialogs = 0;
         page.Dialog += (_, d) => { dialogs++; _ = d.DismissAsync(); };
         await page.GotoAsync(agent.Http.BaseAddress + "");

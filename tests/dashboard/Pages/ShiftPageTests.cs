@@ -29,7 +29,7 @@ public sealed class ShiftPageTests
         await PageRig.FlushAsync(agent);
 
         await using var chromium = await Chromium.LaunchAsync();
-        var page = await chromium.Browser.NewPageAsync();
+        var page = await chromium.NewPageAsync();
         await page.GotoAsync(agent.Http.BaseAddress + "shift");
         Assert.Contains(current.Label, await page.Locator(".shift-when").InnerTextAsync());
         Assert.Equal("1", await page.Locator("#raised-count").TextContentAsync());

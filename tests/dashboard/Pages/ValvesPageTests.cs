@@ -24,7 +24,7 @@ public sealed class ValvesPageTests
         await using var agent = await AgentWithTriangleAsync();
         await PageRig.AddUserAsync(agent, "mae", Roles.Maintenance);
         await using var chromium = await Chromium.LaunchAsync();
-        var page = await chromium.Browser.NewPageAsync();
+        var page = await chromium.NewPageAsync();
         await PageRig.SignInAsync(page, agent, "mae", "/valves");
         var row = page.Locator("tr[data-valve='FV-960/op']");
         // Geometry: a triangle turns twice a period; 20 periods from a rising start give 39 confirmed reversals, and

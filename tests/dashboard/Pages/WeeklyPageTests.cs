@@ -40,7 +40,7 @@ public sealed class WeeklyPageTests
         await PageRig.FlushAsync(agent);
 
         await using var chromium = await Chromium.LaunchAsync();
-        var page = await chromium.Browser.NewPageAsync(new() { AcceptDownloads = true });
+        var page = await chromium.NewPageAsync(new() { AcceptDownloads = true });
         await page.GotoAsync(agent.Http.BaseAddress + "weekly?week=" + week.Key);
         Assert.Contains(week.Key, await page.Locator("h1").InnerTextAsync());
         // Hand count: 30 loop-hours with samples, 23 healthy = 76.7 %; the week before 10 of 10 = 100 %, so -23.3 points.

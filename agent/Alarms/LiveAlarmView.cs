@@ -1,3 +1,4 @@
+using LoopWatch.Dashboard.Reports;
 using LoopWatch.Agent.Ingest;
 using LoopWatch.Agent.Storage;
 using LoopWatch.Dashboard.Model;

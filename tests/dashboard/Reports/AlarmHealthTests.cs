@@ -1,7 +1,7 @@
-using LoopWatch.Agent.Alarms;
+using LoopWatch.Dashboard.Reports;
 using LoopWatch.Storage.Rows;
 
-namespace LoopWatch.Agent.Tests.Alarms;
+namespace LoopWatch.Dashboard.Tests.Reports;
 
 public sealed class AlarmHealthTests
 {

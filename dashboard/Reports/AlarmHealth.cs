@@ -1,7 +1,7 @@
 using LoopWatch.Dashboard.Model;
 using LoopWatch.Storage.Rows;
 
-namespace LoopWatch.Agent.Alarms;
+namespace LoopWatch.Dashboard.Reports;
 
 /// <summary>
 /// Alarm-system figures computed from journal rows alone, so they can be checked on a constructed journal. An

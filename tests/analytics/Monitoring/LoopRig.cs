@@ -12,11 +12,18 @@ internal sealed class LoopRig
     public static readonly long T0 = new DateTime(2026, 4, 6, 5, 0, 0, DateTimeKind.Utc).Ticks;
 
     /// <summary>A rig with the loop's standard detectors, or with <paramref name="detectors"/> when given (to read their state).</summary>
-    public LoopRig(LoopSpec spec, params LoopDetector[] detectors)
+    public LoopRig(LoopSpec spec, params LoopDetector[] detectors) : this(spec, T0, detectors) { }
+
+    /// <summary>A rig whose event time starts at <paramref name="t0"/> (UTC ticks).</summary>
+    public LoopRig(LoopSpec spec, long t0, LoopDetector[] detectors)
     {
         Spec = spec;
+        Start = t0;
         Monitor = new LoopMonitor(spec, Changes.Add, detectors.Length == 0 ? null : detectors);
     }
+
+    /// <summary>Event time zero of this rig.</summary>
+    public long Start { get; }
 
     public LoopSpec Spec { get; }
     public LoopMonitor Monitor { get; }
@@ -38,7 +45,7 @@ internal sealed class LoopRig
     public void Feed(double seconds, double pv, double sp, double op, LoopMode? mode = null, double position = double.NaN,
         SampleQuality pvQuality = SampleQuality.Good)
     {
-        var ticks = T0 + (long)Math.Round(seconds * TimeSpan.TicksPerSecond);
+        var ticks = Start + (long)Math.Round(seconds * TimeSpan.TicksPerSecond);
         if (mode is { } m) Monitor.Update(Signal.Mode, ticks, (double)(byte)m);
         if (!double.IsNaN(position)) Monitor.Update(Signal.Position, ticks, position);
         Monitor.Update(Signal.Pv, ticks, pv, pvQuality);
@@ -64,6 +71,12 @@ internal sealed class LoopRig
             Position = position ? new SignalOptions { Tag = "u3/loop/pos" } : null,
             Limits = limits,
         };
+        return Check(options);
+    }
+
+    /// <summary>Checks options into a spec, failing the test on any error.</summary>
+    public static LoopSpec Check(LoopOptions options)
+    {
         var errors = new List<string>();
         var specs = LoopOptionsCheck.Check([options], errors);
         Assert.Empty(errors);

@@ -3,6 +3,7 @@ using LoopWatch.Analytics.Configuration;
 using LoopWatch.Analytics.Findings;
 using LoopWatch.Analytics.Monitoring;
 using LoopWatch.Analytics.Sampling;
+using LoopWatch.Analytics.Tests.Monitoring;
 
 namespace LoopWatch.Analytics.Tests.Oscillation;
 
@@ -13,15 +14,14 @@ internal sealed class PidLoopRig
     public static readonly long T0 = new DateTime(2026, 3, 2, 6, 0, 0, DateTimeKind.Utc).Ticks;
 
     /// <summary>A rig with the loop's standard detectors, or with <paramref name="detectors"/> when given (to read their state).</summary>
-    public PidLoopRig(LoopSpec spec, params LoopDetector[] detectors)
-    {
-        Spec = spec;
-        Monitor = new LoopMonitor(spec, Changes.Add, detectors.Length == 0 ? null : detectors);
-    }
+    public PidLoopRig(LoopSpec spec, params LoopDetector[] detectors) => _rig = new LoopRig(spec, T0, detectors);
 
-    public LoopSpec Spec { get; }
-    public LoopMonitor Monitor { get; }
-    public List<FindingChange> Changes { get; } = [];
+    // The monitor, the change log and the feeding order are the general rig's; this one adds pid helpers and its own T0.
+    private readonly LoopRig _rig;
+
+    public LoopSpec Spec => _rig.Spec;
+    public LoopMonitor Monitor => _rig.Monitor;
+    public List<FindingChange> Changes => _rig.Changes;
 
     /// <summary>The changes of one kind that raised a finding.</summary>
     public IEnumerable<T> Raised<T>() where T : Finding =>
@@ -31,14 +31,7 @@ internal sealed class PidLoopRig
     public T? Active<T>() where T : Finding => Monitor.Board.Active.OfType<T>().SingleOrDefault();
 
     /// <summary>Feeds one sampling instant at second <paramref name="second"/>: PV and SP in engineering units, OP in %.</summary>
-    public void Feed(long second, double pv, double sp, double op, LoopMode? mode = null)
-    {
-        var ticks = T0 + second * TimeSpan.TicksPerSecond;
-        if (mode is { } m) Monitor.Update(Signal.Mode, ticks, (double)(byte)m);
-        Monitor.Update(Signal.Pv, ticks, pv);
-        Monitor.Update(Signal.Sp, ticks, sp);
-        Monitor.Update(Signal.Op, ticks, op);
-    }
+    public void Feed(long second, double pv, double sp, double op, LoopMode? mode = null) => _rig.Feed(second, pv, sp, op, mode);
 
     /// <summary>Runs a simulated loop for <paramref name="seconds"/> s, feeding what it shows after each step.</summary>
     public void Run(SimulatedLoop loop, long seconds, long from = 0)
@@ -71,11 +64,5 @@ internal sealed class PidLoopRig
     };
 
     /// <summary>Checks options into a spec, failing the test on any error.</summary>
-    public static LoopSpec Check(LoopOptions options)
-    {
-        var errors = new List<string>();
-        var specs = LoopOptionsCheck.Check([options], errors);
-        Assert.Empty(errors);
-        return specs.Single();
-    }
+    public static LoopSpec Check(LoopOptions options) => LoopRig.Check(options);
 }

@@ -7,6 +7,8 @@ need=()
 [ -x /usr/sbin/mosquitto ] || command -v mosquitto >/dev/null 2>&1 || need+=(mosquitto)
 command -v mosquitto_pub >/dev/null 2>&1 || need+=(mosquitto-clients)
 [ -x /usr/bin/chromium ] || need+=(chromium)
+# systemd-analyze checks the shipped unit file (deploy/loopwatch.service).
+command -v systemd-analyze >/dev/null 2>&1 || need+=(systemd)
 if [ ${#need[@]} -gt 0 ]; then
   echo "test.sh: installing ${need[*]}"
   sudo_cmd=""

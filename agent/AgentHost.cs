@@ -34,10 +34,7 @@ public static class AgentHost
         builder.Configuration.Sources.Clear();
         builder.Configuration.AddInMemoryCollection();
         builder.WebHost.UseUrls(setup.Options.Dashboard.Urls);
-        builder.Logging.ClearProviders();
-        builder.Logging.AddSimpleConsole(o => { o.SingleLine = true; o.TimestampFormat = "HH:mm:ss "; });
-        builder.Logging.SetMinimumLevel(LogLevel.Information);
-        builder.Logging.AddFilter("Microsoft.AspNetCore", LogLevel.Warning);
+        Service.ServiceHosting.Configure(builder, setup.Logging);
         logging?.Invoke(builder.Logging);
 
         var services = builder.Services;

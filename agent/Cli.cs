@@ -2,6 +2,8 @@ using LoopWatch.Agent.Configuration;
 using LoopWatch.Agent.Demo;
 using LoopWatch.Agent.Plant;
 using Microsoft.AspNetCore.Builder;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
 
 namespace LoopWatch.Agent;
 
@@ -59,7 +61,8 @@ public static class Cli
             seed = new AgentOptions { Broker = new BrokerOptions { Embedded = true } };
             seed.Loops.AddRange(new DemoPlant().Configuration);
         }
-        var options = errors.Count == 0 ? AgentConfiguration.Load(configFile, overrides, errors, seed) : new AgentOptions();
+        Microsoft.Extensions.Configuration.IConfiguration? logging = null;
+        var options = errors.Count == 0 ? AgentConfiguration.Load(configFile, overrides, errors, seed, out logging) : new AgentOptions();
         var specs = errors.Count == 0 ? AgentOptionsCheck.Check(options, errors) : [];
         if (errors.Count > 0)
         {
@@ -74,7 +77,9 @@ public static class Cli
 
         var time = TimeProvider.System;
         var run = demo ? new DemoRun(speed, time.GetUtcNow()) : null;
-        await using var app = AgentHost.Build(new AgentSetup(options, specs, run, time));
+        // Only `run` reloads its file: the demo's loops come from the simulator, not the file.
+        var source = verb == "run" ? new ConfigurationSource(Path.GetFullPath(configFile!), overrides) : null;
+        await using var app = AgentHost.Build(new AgentSetup(options, specs, run, time) { Logging = logging, Source = source });
         try
         {
             await app.StartAsync(stop);
@@ -85,14 +90,24 @@ public static class Cli
             return 1;
         }
         var b = options.Broker;
-        stdout.WriteLine($"LoopWatch {verb}: {specs.Count} loops");
-        stdout.WriteLine($"  MQTT broker : mqtt://{b.Host}:{b.Port}{(b.Embedded ? " (embedded)" : "")}");
-        stdout.WriteLine($"  dashboard   : {string.Join(", ", AgentHost.DashboardAddresses(app))}");
-        stdout.WriteLine($"  data folder : {Path.GetFullPath(options.DataDir)}");
-        if (demo) stdout.WriteLine($"  demo plant  : Quillmoor Works at {speed}x");
-        stdout.WriteLine("Press Ctrl+C to stop.");
+        var addresses = string.Join(", ", AgentHost.DashboardAddresses(app));
+        Service.ServiceLog.Started(app.Services.GetRequiredService<ILoggerFactory>().CreateLogger("LoopWatch.Agent"), verb, specs.Count, b.Host, b.Port,
+            addresses, Path.GetFullPath(options.DataDir));
+        // The banner is for a person at a terminal; JSON or journal consoles get only the log line above.
+        if (!Service.ServiceHosting.MachineReadConsole(logging)) PrintBanner(stdout, verb, specs.Count, options, addresses, demo ? speed : null);
         await app.WaitForShutdownAsync(stop);
-        stdout.WriteLine("LoopWatch stopped.");
+        if (!Service.ServiceHosting.MachineReadConsole(logging)) stdout.WriteLine("LoopWatch stopped.");
         return 0;
+    }
+
+    private static void PrintBanner(TextWriter stdout, string verb, int loops, AgentOptions options, string addresses, double? speed)
+    {
+        var b = options.Broker;
+        stdout.WriteLine($"LoopWatch {verb}: {loops} loops");
+        stdout.WriteLine($"  MQTT broker : mqtt://{b.Host}:{b.Port}{(b.Embedded ? " (embedded)" : "")}");
+        stdout.WriteLine($"  dashboard   : {addresses}");
+        stdout.WriteLine($"  data folder : {Path.GetFullPath(options.DataDir)}");
+        if (speed is { } x) stdout.WriteLine($"  demo plant  : Quillmoor Works at {x}x");
+        stdout.WriteLine("Press Ctrl+C to stop.");
     }
 }

@@ -9,8 +9,14 @@ public static class AgentConfiguration
     public const string Section = "LoopWatch";
 
     /// <summary>Reads and binds; binding problems (wrong types, unknown keys) are added to <paramref name="errors"/>.</summary>
-    public static AgentOptions Load(string? file, IDictionary<string, string?> overrides, List<string> errors, AgentOptions? seed = null)
+    public static AgentOptions Load(string? file, IDictionary<string, string?> overrides, List<string> errors, AgentOptions? seed = null) =>
+        Load(file, overrides, errors, seed, out _);
+
+    /// <summary>As <see cref="Load(string?, IDictionary{string, string?}, List{string}, AgentOptions?)"/>, also giving the top-level
+    /// <c>Logging</c> section (standard .NET logging keys such as <c>Logging:Console:FormatterName</c>).</summary>
+    public static AgentOptions Load(string? file, IDictionary<string, string?> overrides, List<string> errors, AgentOptions? seed, out IConfiguration logging)
     {
+        logging = new ConfigurationBuilder().Build();
         var builder = new ConfigurationBuilder();
         if (file is not null)
         {
@@ -31,6 +37,7 @@ public static class AgentConfiguration
             errors.Add($"--config: {file} is not valid JSON: {e.Message}");
             return options;
         }
+        logging = root.GetSection("Logging");
         try
         {
             root.GetSection(Section).Bind(options, o => o.ErrorOnUnknownConfiguration = true);

@@ -6,12 +6,7 @@ public sealed class SampleTests
 {
     private static readonly string[] SampleLoops = ["PIC-201", "LIC-301", "TIC-202", "FIC-104"];
 
-    private static string Root()
-    {
-        var dir = new DirectoryInfo(AppContext.BaseDirectory);
-        while (dir is not null && !File.Exists(Path.Combine(dir.FullName, "LoopWatch.sln"))) dir = dir.Parent;
-        return dir?.FullName ?? throw new InvalidOperationException("repository root not found");
-    }
+    private static string Root() => Infrastructure.RepositoryRoot.Path;
 
     /// <summary>Two hours of four demo loops every 2 s, wide format: what samples/ ships.</summary>
     private static PlantRecording Sample() =>

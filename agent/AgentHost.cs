@@ -77,6 +77,8 @@ public static class AgentHost
         // Hosted services start in registration order and stop in reverse: storage opens first and closes last,
         // stored alarm states are back before ingest, the broker runs before anyone connects to it.
         services.AddHostedService<StorageLifetime>();
+        services.AddSingleton<Metrics.AgentMetrics>();
+        services.AddHostedService(sp => sp.GetRequiredService<Metrics.AgentMetrics>());
         services.AddHostedService<AlarmRestore>();
         services.AddHostedService<Valves.ValveCounterSaver>();
         if (opts.Broker.Embedded) services.AddHostedService<EmbeddedBroker>();
@@ -98,6 +100,7 @@ public static class AgentHost
 
         var app = builder.Build();
         app.MapLoopWatchDashboard();
+        Metrics.MetricsEndpoint.Map(app, opts.Dashboard.MetricsAccess);
         return app;
     }
 

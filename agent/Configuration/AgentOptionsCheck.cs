@@ -24,6 +24,7 @@ public static class AgentOptionsCheck
         if (d.ShiftHours is < 1 or > 24 || 24 % d.ShiftHours != 0) errors.Add($"Dashboard:ShiftHours: {d.ShiftHours} does not divide the day (1, 2, 3, 4, 6, 8, 12 or 24)");
         if (!TimeZoneInfo.TryFindSystemTimeZoneById(d.TimeZone ?? "", out _)) errors.Add($"Dashboard:TimeZone: '{d.TimeZone}' is not a known time zone");
         if (string.IsNullOrWhiteSpace(options.Dashboard.Urls)) errors.Add("Dashboard:Urls: is missing");
+        if (d.MetricsAccess is not ("viewing" or "open" or "off")) errors.Add($"Dashboard:MetricsAccess: '{d.MetricsAccess}' is not viewing, open or off");
         if (string.IsNullOrWhiteSpace(options.DataDir)) errors.Add("DataDir: is missing");
         if (options.Valves.ServiceAfterReversals < 1) errors.Add("Valves:ServiceAfterReversals: must be at least 1");
         if (!(options.Valves.ServiceAfterStrokes > 0)) errors.Add("Valves:ServiceAfterStrokes: must be a positive number");

@@ -8,6 +8,12 @@ public sealed class DashboardOptions
     /// <summary>When true, even viewing needs a login; changes always need one. Default false.</summary>
     public bool RequireLoginToView { get; set; }
 
+    /// <summary>
+    /// Who may read <c>/metrics</c>: <c>viewing</c> (default; like the pages, open unless <see cref="RequireLoginToView"/>),
+    /// <c>open</c> (always, for a scraper that cannot log in) or <c>off</c> (no endpoint).
+    /// </summary>
+    public string MetricsAccess { get; set; } = "viewing";
+
     /// <summary>Hour of day (plant time zone) the first shift starts; default 6.</summary>
     public int ShiftStartHour { get; set; } = 6;
 

@@ -18,6 +18,7 @@ public sealed class PlantState : IPlantView
     private readonly TimeProvider _time;
     private readonly ILogger _log;
     private long _received, _accepted, _rejected, _unknown;
+    private readonly long[] _rejectedBy = new long[Enum.GetValues<RejectReason>().Length];
     private long _nextRejectLogTicks;
     private long _suppressedRejectLogs;
 
@@ -77,6 +78,7 @@ public sealed class PlantState : IPlantView
         {
             Interlocked.Increment(ref route.Rejected);
             Interlocked.Increment(ref _rejected);
+            Interlocked.Increment(ref _rejectedBy[(int)reason]);
             LogReject(topic, reason);
             return reason;
         }
@@ -124,6 +126,9 @@ public sealed class PlantState : IPlantView
         return new IngestCounters(Interlocked.Read(ref _received), Interlocked.Read(ref _accepted), Interlocked.Read(ref _rejected),
             Interlocked.Read(ref _unknown), late, BrokerConnected, Math.Max(0, Interlocked.Read(ref Connections) - 1));
     }
+
+    /// <summary>Payloads rejected for <paramref name="reason"/> since start.</summary>
+    public long RejectedFor(RejectReason reason) => Interlocked.Read(ref _rejectedBy[(int)reason]);
 
     private static LoopView View(LoopCell cell) => cell.Read(m =>
     {

@@ -27,11 +27,8 @@ public sealed class IndexModel(IPlantView plant, IAlarmView? alarms = null) : Pa
         var all = plant.Loops();
         AlarmsByLoop = (alarms?.Alarms(activeOnly: true) ?? []).ToLookup(a => a.LoopId);
         Areas = all.Select(l => l.Area).Where(a => a.Length > 0).Distinct().Order(StringComparer.Ordinal).ToList();
-        Total = all.Count;
-        Stale = all.Count(IsStale);
-        InManual = all.Count(l => l.Mode == "manual");
-        WithFindings = all.Count(l => l.Findings.Count > 0 && !IsStale(l));
-        Healthy = all.Count(l => l.Findings.Count == 0 && l.Mode != "manual");
+        var counts = LoopCounts.Of(all);
+        (Total, Healthy, WithFindings, InManual, Stale) = (counts.Total, counts.Healthy, counts.WithFindings, counts.InManual, counts.Stale);
         Loops = all
             .Where(l => string.IsNullOrEmpty(Area) || l.Area == Area)
             .Where(l => string.IsNullOrEmpty(Finding) || l.Findings.Any(f => f.Kind == Finding))
@@ -47,5 +44,5 @@ public sealed class IndexModel(IPlantView plant, IAlarmView? alarms = null) : Pa
     /// <summary>Worst first: stale, then loops with alarms or findings, then manual, then healthy.</summary>
     private int Rank(LoopView l) => IsStale(l) ? 0 : AlarmsByLoop[l.Id].Any() ? 1 : l.Findings.Count > 0 ? 2 : l.Mode == "manual" ? 3 : 4;
 
-    private static bool IsStale(LoopView l) => l.Findings.Any(f => f.Kind == FindingKinds.Stale) || l.LastUpdate is null;
+    private static bool IsStale(LoopView l) => LoopCounts.IsStale(l);
 }

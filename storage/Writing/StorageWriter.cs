@@ -45,6 +45,9 @@ public sealed class StorageWriter : IAsyncDisposable
         _run = Task.Run(RunAsync);
     }
 
+    /// <summary>Raised on the writer's task after each committed batch (for metrics); a handler must be quick and must not throw.</summary>
+    public event Action<BatchCommit>? BatchCommitted;
+
     /// <summary>Null while writes succeed; otherwise what failed and since when.</summary>
     public StorageFault? Fault => _fault;
 
@@ -263,6 +266,10 @@ public sealed class StorageWriter : IAsyncDisposable
         }
         Interlocked.Add(ref _written, count - rejected);
         Interlocked.Increment(ref _batches);
-        Interlocked.Exchange(ref _lastBatchTicks, _time.GetElapsedTime(began).Ticks);
+        var took = _time.GetElapsedTime(began);
+        Interlocked.Exchange(ref _lastBatchTicks, took.Ticks);
+        // The batch is committed: an observer's fault must not make it look failed (a retry would write it twice).
+        try { BatchCommitted?.Invoke(new BatchCommit(count, took)); }
+        catch (Exception exception) { _lastError = $"batch observer: {exception.Message}"; }
     }
 }

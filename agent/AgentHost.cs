@@ -84,6 +84,12 @@ public static class AgentHost
         if (opts.Broker.Embedded) services.AddHostedService<EmbeddedBroker>();
         services.AddHostedService<MqttIngest>();
         services.AddHostedService<PlantTicker>();
+        if (setup.Source is { } source)
+        {
+            services.AddSingleton(source);
+            services.AddSingleton(sp => ActivatorUtilities.CreateInstance<Reload.LoopReload>(sp, opts, setup.Specs));
+            services.AddHostedService<Reload.ConfigurationWatcher>();
+        }
         services.AddHostedService<AlarmTicker>();
         if (opts.AlarmSystem.PublishHealth) services.AddHostedService<HealthPublisher>();
         services.AddHostedService<RetentionService>();

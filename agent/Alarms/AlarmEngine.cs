@@ -1,3 +1,4 @@
+using LoopWatch.Agent.Configuration;
 using LoopWatch.Analytics.Configuration;
 
 namespace LoopWatch.Agent.Alarms;
@@ -8,7 +9,9 @@ namespace LoopWatch.Agent.Alarms;
 /// </summary>
 public sealed class AlarmEngine : IAlarmSink
 {
-    private readonly Dictionary<string, LoopAlarms> _loops;
+    // Replaced whole by Reconfigure, never changed in place.
+    private Dictionary<string, LoopAlarms> _loops;
+    private readonly object _reconfigureGate = new();
     private readonly IAlarmSink[] _sinks;
     private readonly AlarmTransition[] _recent;
     private readonly object _recentGate = new();
@@ -64,6 +67,21 @@ public sealed class AlarmEngine : IAlarmSink
             return AlarmActionResult.Refuse(AlarmState.Normal, $"no alarm '{id}'");
         if (string.IsNullOrWhiteSpace(user)) return AlarmActionResult.Refuse(AlarmState.Normal, "a user name is required");
         return loop.Act(id[(cut + 1)..], trigger, ticks, user, comment, untilTicks);
+    }
+
+    /// <summary>
+    /// Takes a new set of loops while running: alarms of removed and changed loops are retired (see
+    /// <see cref="LoopAlarms.Retire"/>), new and changed loops get fresh alarms, kept loops keep theirs.
+    /// </summary>
+    public void Reconfigure(IReadOnlyList<LoopSpec> specs, LoopSetChange change, long ticks)
+    {
+        lock (_reconfigureGate)
+        {
+            var old = _loops;
+            foreach (var id in change.Removed) old[id].Retire(ticks, "loop removed from the configuration");
+            foreach (var id in change.Changed) old[id].Retire(ticks, "loop changed in the configuration");
+            Volatile.Write(ref _loops, specs.ToDictionary(s => s.Id, s => change.Kept.Contains(s.Id) ? old[s.Id] : new LoopAlarms(s, this), StringComparer.Ordinal));
+        }
     }
 
     /// <summary>Takes back stored states after a restart (see <see cref="LoopAlarms.Restore"/>); unknown loops are ignored.</summary>

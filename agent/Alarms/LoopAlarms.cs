@@ -20,6 +20,7 @@ public sealed class LoopAlarms
     private readonly long _onDelay, _offDelay;
     private readonly TimeZoneInfo _zone;
     private long _now;
+    private bool _retired;
 
     /// <summary>The alarms of <paramref name="spec"/>; every transition goes to <paramref name="sink"/>.</summary>
     public LoopAlarms(LoopSpec spec, IAlarmSink sink)
@@ -49,6 +50,7 @@ public sealed class LoopAlarms
     {
         lock (_gate)
         {
+            if (_retired) return;
             ticks = Advance(ticks);
             var stale = board.IsActive(FindingKinds.Stale);
             var outside = !InWindow(ticks);
@@ -82,9 +84,29 @@ public sealed class LoopAlarms
         {
             var p = Find(kind);
             if (p is null) return AlarmActionResult.Refuse(AlarmState.Normal, $"loop {Spec.Id} has no {kind} alarm");
+            if (_retired) return AlarmActionResult.Refuse(p.State, $"loop {Spec.Id} left the configuration");
             ticks = Advance(ticks);
             if (trigger == AlarmTrigger.Shelve && untilTicks <= ticks) return AlarmActionResult.Refuse(p.State, "the shelf must end in the future");
             return Apply(p, trigger, ticks, user, comment, untilTicks);
+        }
+    }
+
+    /// <summary>
+    /// Ends the loop's alarms when it leaves the configuration: each alarm not in normal is taken out of service and returned
+    /// to service (so it ends in normal), both journaled with <paramref name="comment"/>; nothing is evaluated afterwards.
+    /// </summary>
+    public void Retire(long ticks, string comment)
+    {
+        lock (_gate)
+        {
+            _retired = true;
+            ticks = Advance(ticks);
+            foreach (var p in _points)
+            {
+                if (p.State == AlarmState.Normal) continue;
+                if (p.State != AlarmState.OutOfService) Apply(p, AlarmTrigger.RemoveFromService, ticks, null, comment);
+                Apply(p, AlarmTrigger.ReturnToService, ticks, null, comment);
+            }
         }
     }
 

@@ -28,6 +28,9 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
             else plant.Ingest(e.ApplicationMessage.Topic, payload.ToArray());
             return Task.CompletedTask;
         };
+        // Loops added or removed by a configuration reload: the live session follows (a reconnect subscribes to plant.Topics anyway).
+        Action<IReadOnlyList<string>, IReadOnlyList<string>> follow = (added, removed) => _ = FollowAsync(factory, client, added, removed);
+        plant.TopicsChanged += follow;
         client.DisconnectedAsync += e =>
         {
             if (plant.BrokerConnected) AgentLog.Disconnected(log, e.Reason.ToString());
@@ -59,6 +62,7 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
             }
             await Task.Delay(TimeSpan.FromSeconds(1), time, stoppingToken).ConfigureAwait(ConfigureAwaitOptions.SuppressThrowing);
         }
+        plant.TopicsChanged -= follow;
         if (client.IsConnected)
         {
             try { await client.DisconnectAsync(new MqttClientDisconnectOptionsBuilder().Build(), CancellationToken.None); }
@@ -79,15 +83,39 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
         if (options.UseTls) builder.WithTlsOptions(o => o.UseTls());
         await client.ConnectAsync(builder.Build(), ct);
 
+        await SubscribeAsync(factory, client, plant.Topics, ct);
+        Interlocked.Increment(ref plant.Connections);
+        plant.BrokerConnected = true;
+        AgentLog.Subscribed(log, options.Host, options.Port, plant.Topics.Count);
+    }
+
+    private static async Task SubscribeAsync(MqttClientFactory factory, IMqttClient client, IEnumerable<string> topics, CancellationToken ct)
+    {
         // Several SUBSCRIBE packets of a few hundred filters each: brokers cap the packet size.
-        foreach (var chunk in plant.Topics.Chunk(500))
+        foreach (var chunk in topics.Chunk(500))
         {
             var subscribe = factory.CreateSubscribeOptionsBuilder();
             foreach (var topic in chunk) subscribe.WithTopicFilter(f => f.WithTopic(topic).WithQualityOfServiceLevel(MqttQualityOfServiceLevel.AtLeastOnce));
             await client.SubscribeAsync(subscribe.Build(), ct);
         }
-        Interlocked.Increment(ref plant.Connections);
-        plant.BrokerConnected = true;
-        AgentLog.Subscribed(log, options.Host, options.Port, plant.Topics.Count);
+    }
+
+    private async Task FollowAsync(MqttClientFactory factory, IMqttClient client, IReadOnlyList<string> added, IReadOnlyList<string> removed)
+    {
+        if (!client.IsConnected) return;
+        try
+        {
+            await SubscribeAsync(factory, client, added, CancellationToken.None);
+            foreach (var chunk in removed.Chunk(500))
+            {
+                var unsubscribe = factory.CreateUnsubscribeOptionsBuilder();
+                foreach (var topic in chunk) unsubscribe.WithTopicFilter(topic);
+                await client.UnsubscribeAsync(unsubscribe.Build(), CancellationToken.None);
+            }
+        }
+        catch (Exception e)
+        {
+            Service.ServiceLog.SubscriptionFailed(log, e.Message);
+        }
     }
 }

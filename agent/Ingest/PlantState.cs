@@ -1,3 +1,4 @@
+using LoopWatch.Agent.Configuration;
 using LoopWatch.Analytics.Configuration;
 using LoopWatch.Analytics.Findings;
 using LoopWatch.Analytics.Sampling;
@@ -12,9 +13,14 @@ namespace LoopWatch.Agent.Ingest;
 /// </summary>
 public sealed class PlantState : IPlantView
 {
-    private readonly LoopCell[] _cells;
-    private readonly Dictionary<string, LoopCell> _byId;
-    private readonly Dictionary<string, TagRoute> _routes;
+    // Replaced whole (never changed in place) by Reconfigure, so readers on other threads always see a consistent set.
+    private LoopCell[] _cells;
+    private Dictionary<string, LoopCell> _byId;
+    private Dictionary<string, TagRoute> _routes;
+    private readonly Action<FindingChange>? _findings;
+    private readonly LoopHooks? _hooks;
+    private readonly object _reconfigureGate = new();
+    private long _lateOfRetired;
     private readonly TimeProvider _time;
     private readonly ILogger _log;
     private long _received, _accepted, _rejected, _unknown;
@@ -29,17 +35,35 @@ public sealed class PlantState : IPlantView
         Clock = clock;
         _time = time;
         _log = log;
+        _findings = findings;
+        _hooks = hooks;
         _cells = specs.Select(s => new LoopCell(s, findings, hooks)).ToArray();
         _byId = _cells.ToDictionary(c => c.Spec.Id, StringComparer.Ordinal);
-        _routes = new Dictionary<string, TagRoute>(StringComparer.Ordinal);
-        foreach (var cell in _cells)
+        _routes = RoutesOf(_cells, null);
+    }
+
+    /// <summary>Raised after <see cref="Reconfigure"/> with the topics to subscribe to and those to drop.</summary>
+    public event Action<IReadOnlyList<string>, IReadOnlyList<string>>? TopicsChanged;
+
+    /// <summary>
+    /// Takes a new set of loops while running (<paramref name="change"/> compares it with the running one): a kept loop
+    /// keeps its cell (windows, statistics, tag counters); a new or changed loop gets a fresh cell; a removed loop is dropped.
+    /// </summary>
+    public void Reconfigure(IReadOnlyList<LoopSpec> specs, LoopSetChange change)
+    {
+        lock (_reconfigureGate)
         {
-            var s = cell.Spec;
-            Add(cell, Signal.Pv, s.PvTag);
-            Add(cell, Signal.Op, s.OpTag);
-            if (s.SpTag is not null) Add(cell, Signal.Sp, s.SpTag);
-            if (s.ModeTag is not null) Add(cell, Signal.Mode, s.ModeTag);
-            if (s.PositionTag is not null) Add(cell, Signal.Position, s.PositionTag);
+            var old = _byId;
+            var cells = specs.Select(s => change.Kept.Contains(s.Id) ? old[s.Id] : new LoopCell(s, _findings, _hooks)).ToArray();
+            var routes = RoutesOf(cells, _routes);
+            foreach (var id in change.Removed.Concat(change.Changed)) Interlocked.Add(ref _lateOfRetired, old[id].Read(m => m.Snapshot.LateValues));
+            var oldTopics = _routes.Keys;
+            Volatile.Write(ref _routes, routes);
+            Volatile.Write(ref _byId, cells.ToDictionary(c => c.Spec.Id, StringComparer.Ordinal));
+            Volatile.Write(ref _cells, cells);
+            var added = routes.Keys.Except(oldTopics).ToList();
+            var dropped = oldTopics.Except(routes.Keys).ToList();
+            if (added.Count > 0 || dropped.Count > 0) TopicsChanged?.Invoke(added, dropped);
         }
     }
 
@@ -121,7 +145,7 @@ public sealed class PlantState : IPlantView
     /// <inheritdoc />
     public IngestCounters Counters()
     {
-        long late = 0;
+        var late = Interlocked.Read(ref _lateOfRetired);
         foreach (var c in _cells) late += c.Read(m => m.Snapshot.LateValues);
         return new IngestCounters(Interlocked.Read(ref _received), Interlocked.Read(ref _accepted), Interlocked.Read(ref _rejected),
             Interlocked.Read(ref _unknown), late, BrokerConnected, Math.Max(0, Interlocked.Read(ref Connections) - 1));
@@ -150,15 +174,32 @@ public sealed class PlantState : IPlantView
         _ => hasTag ? "unknown" : "auto",
     };
 
-    private void Add(LoopCell cell, Signal signal, string tag)
+    // A kept cell keeps its route objects, and with them the per-tag counters.
+    private static Dictionary<string, TagRoute> RoutesOf(LoopCell[] cells, Dictionary<string, TagRoute>? previous)
     {
-        var kind = signal switch
+        var routes = new Dictionary<string, TagRoute>(StringComparer.Ordinal);
+        foreach (var cell in cells)
         {
-            Signal.Mode => TagValueKind.Mode,
-            Signal.Op when cell.Spec.Kind == LoopKind.OnOff => TagValueKind.Binary,
-            _ => TagValueKind.Analog,
-        };
-        _routes[tag] = new TagRoute(cell, signal, tag, kind);
+            var s = cell.Spec;
+            Add(Signal.Pv, s.PvTag);
+            Add(Signal.Op, s.OpTag);
+            if (s.SpTag is not null) Add(Signal.Sp, s.SpTag);
+            if (s.ModeTag is not null) Add(Signal.Mode, s.ModeTag);
+            if (s.PositionTag is not null) Add(Signal.Position, s.PositionTag);
+
+            void Add(Signal signal, string tag)
+            {
+                if (previous?.GetValueOrDefault(tag) is { } kept && kept.Cell == cell && kept.Signal == signal) { routes[tag] = kept; return; }
+                var kind = signal switch
+                {
+                    Signal.Mode => TagValueKind.Mode,
+                    Signal.Op when cell.Spec.Kind == LoopKind.OnOff => TagValueKind.Binary,
+                    _ => TagValueKind.Analog,
+                };
+                routes[tag] = new TagRoute(cell, signal, tag, kind);
+            }
+        }
+        return routes;
     }
 
     private void LogReject(string topic, RejectReason reason)

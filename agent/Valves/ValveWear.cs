@@ -16,12 +16,13 @@ public sealed class ValveWear(PlantState plant, AgentStorage storage, ValveOptio
     public const string OutputElement = "op";
     public const string PositionElement = "position";
 
-    /// <summary>Seeds each counter from the stored period; call before data flows.</summary>
-    public void Restore()
+    /// <summary>Seeds each counter (or only those of <paramref name="loopIds"/>, loops a reload added) from the stored period; call before data flows.</summary>
+    public void Restore(IReadOnlySet<string>? loopIds = null)
     {
         var rows = storage.Reader.ReadCountersAsync().GetAwaiter().GetResult().ToDictionary(r => (r.LoopId, r.Element));
         foreach (var (cell, element, counter) in Elements())
         {
+            if (loopIds is not null && !loopIds.Contains(cell.Spec.Id)) continue;
             if (!rows.TryGetValue((cell.Spec.Id, element), out var row)) continue;
             cell.Read(_ =>
             {

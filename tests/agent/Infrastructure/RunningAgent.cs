@@ -3,6 +3,7 @@ using System.Text.Json;
 using LoopWatch.Agent.Configuration;
 using LoopWatch.Analytics.Configuration;
 using Microsoft.AspNetCore.Builder;
+using Microsoft.Extensions.Logging;
 
 namespace LoopWatch.Agent.Tests.Infrastructure;
 
@@ -41,6 +42,21 @@ public sealed class RunningAgent : IAsyncDisposable
         await app.StartAsync();
         var http = new HttpClient { BaseAddress = new Uri(AgentHost.DashboardAddresses(app)[0]) };
         return new RunningAgent(app, options, http, dir);
+    }
+
+    /// <summary>Starts the agent as <c>loopwatch run --config FILE --data-dir DIR</c> does, watching the file for loop changes; its log lines go to <paramref name="logs"/>.</summary>
+    public static async Task<RunningAgent> StartFromFileAsync(string configFile, string dataDir, LogCapture? logs = null)
+    {
+        var errors = new List<string>();
+        var overrides = new Dictionary<string, string?> { ["LoopWatch:DataDir"] = dataDir };
+        var options = AgentConfiguration.Load(configFile, overrides, errors, null, out var logging);
+        var specs = errors.Count == 0 ? AgentOptionsCheck.Check(options, errors) : [];
+        if (errors.Count > 0) throw new InvalidOperationException(string.Join("; ", errors));
+        var setup = new AgentSetup(options, specs, null, TimeProvider.System) { Logging = logging, Source = new ConfigurationSource(configFile, overrides) };
+        var app = AgentHost.Build(setup, logs is null ? null : b => b.AddProvider(logs));
+        await app.StartAsync();
+        var http = new HttpClient { BaseAddress = new Uri(AgentHost.DashboardAddresses(app)[0]) };
+        return new RunningAgent(app, options, http, dataDir);
     }
 
     public async Task<JsonElement> LoopsAsync() => await Http.GetFromJsonAsync<JsonElement>("/api/loops");

@@ -3,7 +3,6 @@ using System.Net;
 using System.Net.Http.Json;
 using System.Text.Json;
 using LoopWatch.Agent.Tests.Infrastructure;
-using LoopWatch.Analytics.Configuration;
 using LoopWatch.Dashboard.Model;
 using Microsoft.Extensions.DependencyInjection;
 using MQTTnet;
@@ -12,14 +11,6 @@ namespace LoopWatch.Agent.Tests.Alarms;
 
 public sealed class AlarmLiveTests
 {
-    private static LoopOptions FastStale(string id)
-    {
-        var o = TestLoops.Pid(id);
-        o.Limits = new LimitOptions { StaleSeconds = 2 };
-        o.Alarms = new AlarmOptions { OnDelaySeconds = 0, OffDelaySeconds = 0 };
-        return o;
-    }
-
     private static async Task FeedAsync(IMqttClient client, string id, DateTimeOffset t)
     {
         var ts = t.ToString("O");
@@ -32,7 +23,7 @@ public sealed class AlarmLiveTests
     public async Task A_stale_loop_raises_an_alarm_an_operator_acknowledges_through_the_api()
     {
         var port = FreePort.Next();
-        await using var agent = await RunningAgent.StartAsync([FastStale("FIC-970")], embedded: true, brokerPort: port,
+        await using var agent = await RunningAgent.StartAsync([TestLoops.FastStale("FIC-970")], embedded: true, brokerPort: port,
             services: s => s.AddSingleton<IActionGuard, HeaderGuard>());
         using var client = new MqttClientFactory().CreateMqttClient();
         await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", port).Build());
@@ -68,7 +59,7 @@ public sealed class AlarmLiveTests
     public async Task Loop_health_is_retained_on_mosquitto_and_read_by_mosquitto_sub()
     {
         await using var broker = await Mosquitto.StartAsync();
-        await using var agent = await RunningAgent.StartAsync([FastStale("FIC-971")], embedded: false, brokerPort: broker.Port,
+        await using var agent = await RunningAgent.StartAsync([TestLoops.FastStale("FIC-971")], embedded: false, brokerPort: broker.Port,
             tweak: o => o.AlarmSystem.HealthIntervalSeconds = 1);
         // mosquitto_sub is a client we did not write; -C 1 exits after one message, retained ones included.
         var sub = await Eventually.Until(async () =>

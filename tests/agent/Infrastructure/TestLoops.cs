@@ -13,4 +13,13 @@ public static class TestLoops
         Op = new SignalOptions { Tag = $"{root}/{id}/op" },
         Mode = new SignalOptions { Tag = $"{root}/{id}/mode" },
     };
+
+    /// <summary>A pid loop that goes stale 2 s after its last value and alarms at once (no on- or off-delay).</summary>
+    public static LoopOptions FastStale(string id)
+    {
+        var o = Pid(id);
+        o.Limits = new LimitOptions { StaleSeconds = 2 };
+        o.Alarms = new AlarmOptions { OnDelaySeconds = 0, OffDelaySeconds = 0 };
+        return o;
+    }
 }

@@ -2,21 +2,12 @@ using System.Net;
 using System.Net.Http.Json;
 using System.Text.Json;
 using LoopWatch.Agent.Tests.Infrastructure;
-using LoopWatch.Analytics.Configuration;
 
 namespace LoopWatch.Agent.Tests.Metrics;
 
 /// <summary>/metrics of a real running agent fed through a real Mosquitto by mosquitto_pub.</summary>
 public sealed class MetricsTests
 {
-    private static LoopOptions FastStale(string id)
-    {
-        var o = TestLoops.Pid(id);
-        o.Limits = new LimitOptions { StaleSeconds = 2 };
-        o.Alarms = new AlarmOptions { OnDelaySeconds = 0, OffDelaySeconds = 0 };
-        return o;
-    }
-
     private static async Task<Dictionary<string, double>> ScrapeAsync(RunningAgent agent)
     {
         var response = await agent.Http.GetAsync("/metrics");
@@ -29,7 +20,7 @@ public sealed class MetricsTests
     public async Task Counters_equal_what_was_published_alarm_gauges_equal_api_alarms_and_commits_are_timed()
     {
         await using var broker = await Mosquitto.StartAsync();
-        await using var agent = await RunningAgent.StartAsync([FastStale("FIC-980"), TestLoops.Pid("FIC-981")], embedded: false, brokerPort: broker.Port);
+        await using var agent = await RunningAgent.StartAsync([TestLoops.FastStale("FIC-980"), TestLoops.Pid("FIC-981")], embedded: false, brokerPort: broker.Port);
         await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
 
         var t = DateTimeOffset.UtcNow;

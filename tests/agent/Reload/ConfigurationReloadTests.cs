@@ -19,14 +19,6 @@ public sealed class ConfigurationReloadTests
         return o;
     }
 
-    private static LoopOptions FastStale(string id)
-    {
-        var o = TestLoops.Pid(id);
-        o.Limits = new LimitOptions { StaleSeconds = 2 };
-        o.Alarms = new AlarmOptions { OnDelaySeconds = 0, OffDelaySeconds = 0 };
-        return o;
-    }
-
     private sealed class Rig : IAsyncDisposable
     {
         public required Mosquitto Broker { get; init; }
@@ -115,7 +107,7 @@ public sealed class ConfigurationReloadTests
     [Fact]
     public async Task A_removed_loop_disappears_is_unsubscribed_and_its_active_alarm_is_journaled_back_to_normal()
     {
-        await using var rig = await Rig.StartAsync(Kept("FIC-992"), FastStale("FIC-993"));
+        await using var rig = await Rig.StartAsync(Kept("FIC-992"), TestLoops.FastStale("FIC-993"));
         var t0 = DateTimeOffset.UtcNow;
         await rig.FeedAsync("FIC-993", t0, 0, 2);
         await Eventually.Until(async () => await rig.Agent.Http.GetFromJsonAsync<JsonElement>("/api/alarms?state=active"),

@@ -15,16 +15,10 @@ public sealed class SystemdNotifyTests
     public async Task Under_systemd_the_agent_sends_READY_then_STOPPING_and_JSON_console_lines_are_valid_JSON()
     {
         await using var broker = await Mosquitto.StartAsync();
-        var dir = Directory.CreateTempSubdirectory("lw-notify-").FullName;
-        var socketPath = Path.Combine(dir, "notify.sock");
-        using var socket = new Socket(AddressFamily.Unix, SocketType.Dgram, ProtocolType.Unspecified);
-        socket.Bind(new UnixDomainSocketEndPoint(socketPath));
         var dashboard = $"http://127.0.0.1:{FreePort.Next()}";
-        var config = Path.Combine(dir, "loopwatch.json");
-        await File.WriteAllTextAsync(config, ConfigFile.Text(broker.Port, dashboard, [TestLoops.Pid("FIC-950")]));
-
-        await using var agent = AgentProcess.Start(["run", "--config", config, "--data-dir", Path.Combine(dir, "data")],
-            new Dictionary<string, string> { ["NOTIFY_SOCKET"] = socketPath, ["Logging__Console__FormatterName"] = "json" }, asSystemdMain: true);
+        var (agent, socket) = await StartUnderSystemdAsync(broker, dashboard, "FIC-950", new() { ["Logging__Console__FormatterName"] = "json" });
+        await using var stopAgent = agent;
+        using var closeSocket = socket;
 
         var ready = await ReceiveAsync(socket, agent);
         Assert.Contains("READY=1", ready.Split('\n'));
@@ -57,15 +51,9 @@ public sealed class SystemdNotifyTests
     public async Task Under_systemd_without_a_configured_formatter_the_console_uses_the_journal_priority_prefix()
     {
         await using var broker = await Mosquitto.StartAsync();
-        var dir = Directory.CreateTempSubdirectory("lw-notify-").FullName;
-        var socketPath = Path.Combine(dir, "notify.sock");
-        using var socket = new Socket(AddressFamily.Unix, SocketType.Dgram, ProtocolType.Unspecified);
-        socket.Bind(new UnixDomainSocketEndPoint(socketPath));
-        var config = Path.Combine(dir, "loopwatch.json");
-        await File.WriteAllTextAsync(config, ConfigFile.Text(broker.Port, $"http://127.0.0.1:{FreePort.Next()}", [TestLoops.Pid("FIC-951")]));
-
-        await using var agent = AgentProcess.Start(["run", "--config", config, "--data-dir", Path.Combine(dir, "data")],
-            new Dictionary<string, string> { ["NOTIFY_SOCKET"] = socketPath }, asSystemdMain: true);
+        var (agent, socket) = await StartUnderSystemdAsync(broker, $"http://127.0.0.1:{FreePort.Next()}", "FIC-951", []);
+        await using var stopAgent = agent;
+        using var closeSocket = socket;
         Assert.Contains("READY=1", (await ReceiveAsync(socket, agent)).Split('\n'));
         await agent.TerminateAsync();
         Assert.True(await agent.WaitForExitAsync(TimeSpan.FromSeconds(60)), "the agent did not stop after SIGTERM");
@@ -74,6 +62,21 @@ public sealed class SystemdNotifyTests
         var lines = agent.Stdout.Where(l => l.Length > 0).ToList();
         Assert.Contains(lines, l => l.StartsWith("<6>", StringComparison.Ordinal) && l.Contains("started"));
         Assert.All(lines, l => Assert.Matches("^<[0-7]>", l));
+    }
+
+    /// <summary>A notify socket bound in a temp folder and <c>loopwatch run</c> started as systemd's main process with NOTIFY_SOCKET naming it.</summary>
+    private static async Task<(AgentProcess Agent, Socket Socket)> StartUnderSystemdAsync(Mosquitto broker, string dashboard, string loopId,
+        Dictionary<string, string> environment)
+    {
+        var dir = Directory.CreateTempSubdirectory("lw-notify-").FullName;
+        var socketPath = Path.Combine(dir, "notify.sock");
+        var socket = new Socket(AddressFamily.Unix, SocketType.Dgram, ProtocolType.Unspecified);
+        socket.Bind(new UnixDomainSocketEndPoint(socketPath));
+        var config = Path.Combine(dir, "loopwatch.json");
+        await File.WriteAllTextAsync(config, ConfigFile.Text(broker.Port, dashboard, [TestLoops.Pid(loopId)]));
+        environment["NOTIFY_SOCKET"] = socketPath;
+        var agent = AgentProcess.Start(["run", "--config", config, "--data-dir", Path.Combine(dir, "data")], environment, asSystemdMain: true);
+        return (agent, socket);
     }
 
     private static async Task<string> ReceiveAsync(Socket socket, AgentProcess agent)

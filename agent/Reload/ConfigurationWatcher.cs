@@ -34,7 +34,7 @@ public sealed class ConfigurationWatcher(ConfigurationSource source, LoopReload 
         watcher.Changed += Poke;
         watcher.Created += Poke;
         watcher.Renamed += Poke;
-        watcher.Error += (_, e) => ServiceLog.ReloadRefused(log, file, $"watching the file failed: {e.GetException().Message}");
+        watcher.Error += (_, e) => ServiceLog.WatchFailed(log, file, e.GetException().Message);
         watcher.EnableRaisingEvents = true;
         try
         {

@@ -20,6 +20,9 @@ internal static partial class ServiceLog
     [LoggerMessage(4713, LogLevel.Information, "Loop {LoopId} {Change} by a configuration reload")]
     public static partial void LoopChanged(ILogger logger, string loopId, string change);
 
+    [LoggerMessage(4715, LogLevel.Error, "Watching configuration {File} failed ({Error}); loop changes in it are not seen until a restart")]
+    public static partial void WatchFailed(ILogger logger, string file, string error);
+
     [LoggerMessage(4714, LogLevel.Warning, "Subscription change after a configuration reload failed ({Error}); the next reconnect subscribes afresh")]
     public static partial void SubscriptionFailed(ILogger logger, string error);
 }

@@ -2,6 +2,9 @@ using System.Net.Http.Json;
 using System.Text.Json;
 using LoopWatch.Agent.Tests.Infrastructure;
 using LoopWatch.Analytics.Configuration;
+using LoopWatch.Agent.Storage;
+using LoopWatch.Storage.Reading;
+using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Logging;
 using MQTTnet;
 using MQTTnet.Protocol;
@@ -121,6 +124,14 @@ public sealed class ConfigurationReloadTests
         var retired = alarms.GetProperty("transitions").EnumerateArray()
             .Where(t => t.GetProperty("id").GetString() == "FIC-993:stale").Select(t => t.GetProperty("to").GetString()).ToList();
         Assert.Equal(["unacknowledged", "out-of-service", "normal"], retired); // raised, then retired through out of service
+        // Journaled in SQLite with the reason, and the stored state is normal, so a restart does not bring the alarm back.
+        var storage = rig.Agent.App.Services.GetRequiredService<AgentStorage>();
+        await storage.Writer.FlushAsync();
+        var journal = await storage.Reader.ReadJournalAsync(new JournalQuery(0, long.MaxValue, LoopId: "FIC-993", Kind: "stale", OldestFirst: true));
+        var stored = journal.Where(j => j.LoopId == "FIC-993" && j.Kind == "stale").ToList();
+        Assert.Equal(["unacknowledged", "out-of-service", "normal"], stored.Select(j => j.ToState));
+        Assert.All(stored.Skip(1), j => Assert.Equal("loop removed from the configuration", j.Comment));
+        Assert.All(await storage.Reader.ReadAlarmStatesAsync(), a => { if (a.LoopId == "FIC-993") Assert.Equal("normal", a.State); });
 
         // Unsubscribed: a value on the removed loop's tag never arrives; one on the kept loop, published after it, does.
         var before = (await rig.Agent.HealthAsync()).GetProperty("ingest");

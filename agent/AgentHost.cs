@@ -71,6 +71,8 @@ public static class AgentHost
                 sp.GetRequiredService<ILogger<PlantState>>(), FindingLog(sp.GetRequiredService<ILogger<PlantState>>()), hooks);
         });
         services.AddSingleton<IPlantView>(sp => sp.GetRequiredService<PlantState>());
+        services.AddSingleton(opts.Sparkplug);
+        services.AddSingleton<Sparkplug.SparkplugReader>();
         services.AddSingleton<IAlarmView, LiveAlarmView>();
         services.AddSingleton(opts.Valves);
         services.AddSingleton<Valves.ValveWear>();
@@ -84,6 +86,7 @@ public static class AgentHost
         services.AddHostedService<Valves.ValveCounterSaver>();
         if (opts.Broker.Embedded) services.AddHostedService<EmbeddedBroker>();
         services.AddHostedService<MqttIngest>();
+        if (opts.Sparkplug.RequestRebirth) services.AddHostedService<Sparkplug.SparkplugRebirth>();
         services.AddHostedService<PlantTicker>();
         services.AddHostedService<AlarmTicker>();
         if (opts.AlarmSystem.PublishHealth) services.AddHostedService<HealthPublisher>();
@@ -101,6 +104,7 @@ public static class AgentHost
 
         var app = builder.Build();
         app.MapLoopWatchDashboard();
+        Sparkplug.SparkplugApi.Map(app);
         return app;
     }
 

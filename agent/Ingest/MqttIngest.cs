@@ -11,7 +11,7 @@ namespace LoopWatch.Agent.Ingest;
 /// The agent's MQTT subscription: an ordinary client of whatever broker the configuration names, subscribed to every
 /// loop tag, reconnecting with backoff. It only reads; it never publishes on a plant tag.
 /// </summary>
-public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProvider time, ILogger<MqttIngest> log) : BackgroundService
+public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplug.SparkplugReader sparkplug, TimeProvider time, ILogger<MqttIngest> log) : BackgroundService
 {
     private IMqttClient? _client;
 
@@ -24,8 +24,10 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
         client.ApplicationMessageReceivedAsync += e =>
         {
             var payload = e.ApplicationMessage.Payload;
-            if (payload.IsSingleSegment) plant.Ingest(e.ApplicationMessage.Topic, payload.FirstSpan);
-            else plant.Ingest(e.ApplicationMessage.Topic, payload.ToArray());
+            var topic = e.ApplicationMessage.Topic;
+            if (Sparkplug.SparkplugReader.Owns(topic)) sparkplug.Ingest(topic, payload.IsSingleSegment ? payload.FirstSpan : payload.ToArray());
+            else if (payload.IsSingleSegment) plant.Ingest(topic, payload.FirstSpan);
+            else plant.Ingest(topic, payload.ToArray());
             return Task.CompletedTask;
         };
         client.DisconnectedAsync += e =>
@@ -80,7 +82,8 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
         await client.ConnectAsync(builder.Build(), ct);
 
         // Several SUBSCRIBE packets of a few hundred filters each: brokers cap the packet size.
-        foreach (var chunk in plant.Topics.Chunk(500))
+        var topics = plant.Topics.Concat(sparkplug.Filters).ToList();
+        foreach (var chunk in topics.Chunk(500))
         {
             var subscribe = factory.CreateSubscribeOptionsBuilder();
             foreach (var topic in chunk) subscribe.WithTopicFilter(f => f.WithTopic(topic).WithQualityOfServiceLevel(MqttQualityOfServiceLevel.AtLeastOnce));
@@ -88,6 +91,6 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
         }
         Interlocked.Increment(ref plant.Connections);
         plant.BrokerConnected = true;
-        AgentLog.Subscribed(log, options.Host, options.Port, plant.Topics.Count);
+        AgentLog.Subscribed(log, options.Host, options.Port, topics.Count);
     }
 }

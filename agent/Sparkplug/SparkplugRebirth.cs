@@ -36,10 +36,7 @@ public sealed class SparkplugRebirth(BrokerOptions broker, SparkplugReader reade
                 {
                     if (!client.IsConnected)
                     {
-                        var b = new MqttClientOptionsBuilder().WithTcpServer(broker.Host, broker.Port).WithClientId(broker.ClientId + "-rebirth");
-                        if (broker.Username is not null) b.WithCredentials(broker.Username, broker.Password);
-                        if (broker.UseTls) b.WithTlsOptions(o => o.UseTls());
-                        await client.ConnectAsync(b.Build(), stoppingToken);
+                        await client.ConnectAsync(Broker.BrokerClient.Options(broker, "rebirth"), stoppingToken);
                     }
                     // 4.2 "Sparkplug MQTT Topic & Messages": commands go at QoS 0 and are never retained.
                     await client.PublishAsync(new MqttApplicationMessageBuilder().WithTopic(topic).WithPayload(Payload(time.GetUtcNow()))

@@ -38,14 +38,6 @@ public sealed class SparkplugIngestTests
         Limits = new LimitOptions { StaleSeconds = 3600 },
     };
 
-    private static async Task<(Mosquitto Broker, RunningAgent Agent)> StartAsync(bool rebirth = false)
-    {
-        var broker = await Mosquitto.StartAsync();
-        var agent = await RunningAgent.StartAsync(Loops(), embedded: false, brokerPort: broker.Port, tweak: o => o.Sparkplug.RequestRebirth = rebirth);
-        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
-        return (broker, agent);
-    }
-
     private static async Task<JsonElement> CountersAsync(RunningAgent agent) =>
         (await agent.Http.GetFromJsonAsync<JsonElement>("/api/sparkplug")).GetProperty("counters");
 
@@ -70,9 +62,8 @@ public sealed class SparkplugIngestTests
     [Fact]
     public async Task Birth_then_data_by_alias_reaches_the_loops_through_the_same_loop_state()
     {
-        var (broker, agent) = await StartAsync();
-        await using var _ = broker;
-        await using var __ = agent;
+        await using var rig = await Rig.StartAsync();
+        var (broker, agent) = (rig.Broker, rig.Agent);
         await using var edge = await SparkplugEdge.ConnectAsync(broker.Port, Group, Node);
 
         await BirthAsync(edge);
@@ -100,9 +91,8 @@ public sealed class SparkplugIngestTests
     [Fact]
     public async Task Data_by_name_is_taken_with_the_type_it_carries()
     {
-        var (broker, agent) = await StartAsync();
-        await using var _ = broker;
-        await using var __ = agent;
+        await using var rig = await Rig.StartAsync();
+        var (broker, agent) = (rig.Broker, rig.Agent);
         await using var edge = await SparkplugEdge.ConnectAsync(broker.Port, Group, Node);
 
         await edge.NodeBirthAsync(SparkplugEdge.Double("PIC-502/PV", 5), SparkplugEdge.Double("PIC-502/SP", 6), SparkplugEdge.Double("PIC-502/OP", 40));
@@ -120,9 +110,8 @@ public sealed class SparkplugIngestTests
     [Fact]
     public async Task A_death_makes_the_loops_of_that_device_or_node_stale_at_once_and_a_rebirth_ends_it()
     {
-        var (broker, agent) = await StartAsync();
-        await using var _ = broker;
-        await using var __ = agent;
+        await using var rig = await Rig.StartAsync();
+        var (broker, agent) = (rig.Broker, rig.Agent);
         var edge = await SparkplugEdge.ConnectAsync(broker.Port, Group, Node, bdSeq: 7);
         await BirthAsync(edge);
         await LoopUntil(agent, "PIC-502", l => Number(l, "op") == 40, "birth values");
@@ -154,11 +143,8 @@ public sealed class SparkplugIngestTests
     [Fact]
     public async Task Sequence_gaps_and_unknown_aliases_are_counted_and_with_the_option_off_nothing_is_published()
     {
-        var (broker, agent) = await StartAsync(rebirth: false);
-        await using var _ = broker;
-        await using var __ = agent;
-        var commands = await CommandWatcher.StartAsync(broker.Port);
-        await using var ___ = commands;
+        await using var rig = await Rig.StartAsync(rebirth: false);
+        var (broker, agent, commands) = (rig.Broker, rig.Agent, rig.Commands);
         await using var edge = await SparkplugEdge.ConnectAsync(broker.Port, Group, Node);
         await BirthAsync(edge);
 
@@ -187,11 +173,8 @@ public sealed class SparkplugIngestTests
     [Fact]
     public async Task With_the_option_on_an_unknown_alias_sends_one_rate_limited_rebirth_command()
     {
-        var (broker, agent) = await StartAsync(rebirth: true);
-        await using var _ = broker;
-        await using var __ = agent;
-        var commands = await CommandWatcher.StartAsync(broker.Port);
-        await using var ___ = commands;
+        await using var rig = await Rig.StartAsync(rebirth: true);
+        var (broker, agent, commands) = (rig.Broker, rig.Agent, rig.Commands);
         await using var edge = await SparkplugEdge.ConnectAsync(broker.Port, Group, Node);
         await BirthAsync(edge);
 
@@ -210,6 +193,29 @@ public sealed class SparkplugIngestTests
         Assert.Equal(2, counters.GetProperty("unknown_aliases").GetInt64());
         await commands.SentinelAsync();
         Assert.Single(commands.Received, m => m.Topic != CommandWatcher.SentinelTopic);
+    }
+
+    /// <summary>Mosquitto, the agent subscribed to it and a watcher on every Sparkplug command topic.</summary>
+    private sealed class Rig(Mosquitto broker, RunningAgent agent, CommandWatcher commands) : IAsyncDisposable
+    {
+        public Mosquitto Broker { get; } = broker;
+        public RunningAgent Agent { get; } = agent;
+        public CommandWatcher Commands { get; } = commands;
+
+        public static async Task<Rig> StartAsync(bool rebirth = false)
+        {
+            var broker = await Mosquitto.StartAsync();
+            var agent = await RunningAgent.StartAsync(Loops(), embedded: false, brokerPort: broker.Port, tweak: o => o.Sparkplug.RequestRebirth = rebirth);
+            await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+            return new Rig(broker, agent, await CommandWatcher.StartAsync(broker.Port));
+        }
+
+        public async ValueTask DisposeAsync()
+        {
+            await Commands.DisposeAsync();
+            await Agent.DisposeAsync();
+            await Broker.DisposeAsync();
+        }
     }
 
     /// <summary>A subscriber on every Sparkplug command topic; a sentinel it publishes itself marks "everything before has arrived".</summary>

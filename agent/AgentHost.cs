@@ -68,6 +68,8 @@ public static class AgentHost
                 sp.GetRequiredService<ILogger<PlantState>>(), FindingLog(sp.GetRequiredService<ILogger<PlantState>>()), hooks);
         });
         services.AddSingleton<IPlantView>(sp => sp.GetRequiredService<PlantState>());
+        services.AddSingleton(opts.Sparkplug);
+        services.AddSingleton<Sparkplug.SparkplugReader>();
         services.AddSingleton<IAlarmView, LiveAlarmView>();
         services.AddSingleton(opts.Valves);
         services.AddSingleton<Valves.ValveWear>();
@@ -83,6 +85,7 @@ public static class AgentHost
         services.AddHostedService<Valves.ValveCounterSaver>();
         if (opts.Broker.Embedded) services.AddHostedService<EmbeddedBroker>();
         services.AddHostedService<MqttIngest>();
+        if (opts.Sparkplug.RequestRebirth) services.AddHostedService<Sparkplug.SparkplugRebirth>();
         services.AddHostedService<PlantTicker>();
         if (setup.Source is { } source)
         {
@@ -107,6 +110,7 @@ public static class AgentHost
         var app = builder.Build();
         app.MapLoopWatchDashboard();
         Metrics.MetricsEndpoint.Map(app, opts.Dashboard.MetricsAccess);
+        Sparkplug.SparkplugApi.Map(app);
         return app;
     }
 

@@ -17,6 +17,7 @@ public static class Cli
           loopwatch check --config FILE                                   check a configuration and exit
           loopwatch analyze --config FILE [--format text|json|csv|html] [--out FILE] [--from T] [--to T] [--strict] FILE...
                                                                           historian CSV files through the same analytics
+          loopwatch discover --broker HOST:PORT [--seconds 30] [--out FILE]   listen and propose a configuration to review
           loopwatch user add NAME --role viewer|operator|maintenance|admin [--data-dir DIR]   add a dashboard user
         """;
 
@@ -35,6 +36,8 @@ public static class Cli
                 return await RunAgentAsync(verb, cli, errors, stdout, stderr, stop);
             case "analyze":
                 return Analyze.AnalyzeCommand.Run(args.Skip(1), stdout, stderr);
+            case "discover":
+                return await Discovery.DiscoverCommand.RunAsync(cli, errors, stdout, stderr, TimeProvider.System, stop);
             case "user":
                 return await UserVerb.RunAsync(cli, errors, stdin ?? Console.In, stdout, stderr);
             default:

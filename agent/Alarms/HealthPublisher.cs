@@ -31,10 +31,7 @@ public sealed class HealthPublisher(BrokerOptions broker, AlarmSystemOptions opt
             {
                 if (!client.IsConnected)
                 {
-                    var b = new MqttClientOptionsBuilder().WithTcpServer(broker.Host, broker.Port).WithClientId(broker.ClientId + "-health");
-                    if (broker.Username is not null) b.WithCredentials(broker.Username, broker.Password);
-                    if (broker.UseTls) b.WithTlsOptions(o => o.UseTls());
-                    await client.ConnectAsync(b.Build(), stoppingToken);
+                    await client.ConnectAsync(Broker.BrokerClient.Options(broker, "health"), stoppingToken);
                 }
                 foreach (var cell in plant.Cells)
                 {

@@ -31,6 +31,8 @@ public static class AgentOptionsCheck
         if (!(options.Valves.SaveEverySeconds >= 1)) errors.Add("Valves:SaveEverySeconds: must be at least 1");
         if (options.Loops.Count == 0) errors.Add("Loops: no loop is configured");
         errors.AddRange(options.AlarmSystem.Check(options.Loops.SelectMany(l => new[] { l.Pv?.Tag, l.Sp?.Tag, l.Op?.Tag, l.Mode?.Tag, l.Position?.Tag }).OfType<string>()));
+        errors.AddRange(options.Sparkplug.Check(options.Loops.SelectMany((l, i) => new[] { ("Pv", l.Pv), ("Sp", l.Sp), ("Op", l.Op), ("Mode", l.Mode), ("Position", l.Position) }
+            .Where(s => s.Item2?.Tag is { Length: > 0 }).Select(s => ($"Loops:{i} ({l.Id}): {s.Item1}:Tag", s.Item2!.Tag!)))));
         return LoopOptionsCheck.Check(options.Loops, errors);
     }
 }

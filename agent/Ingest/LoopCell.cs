@@ -36,6 +36,12 @@ public sealed class LoopCell
         lock (_gate) Monitor.Update(signal, ticks, value, quality);
     }
 
+    /// <summary>The source of one of the loop's tags reported itself offline: the loop is stale at once.</summary>
+    public void SourceLost(Signal signal, long ticks, string source)
+    {
+        lock (_gate) Monitor.SourceLost(signal, ticks, source);
+    }
+
     /// <summary>Moves the loop's clock on (stale detection).</summary>
     public void Advance(long nowTicks)
     {

@@ -11,7 +11,7 @@ namespace LoopWatch.Agent.Ingest;
 /// The agent's MQTT subscription: an ordinary client of whatever broker the configuration names, subscribed to every
 /// loop tag, reconnecting with backoff. It only reads; it never publishes on a plant tag.
 /// </summary>
-public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProvider time, ILogger<MqttIngest> log) : BackgroundService
+public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplug.SparkplugReader sparkplug, TimeProvider time, ILogger<MqttIngest> log) : BackgroundService
 {
     private IMqttClient? _client;
 
@@ -24,8 +24,10 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
         client.ApplicationMessageReceivedAsync += e =>
         {
             var payload = e.ApplicationMessage.Payload;
-            if (payload.IsSingleSegment) plant.Ingest(e.ApplicationMessage.Topic, payload.FirstSpan);
-            else plant.Ingest(e.ApplicationMessage.Topic, payload.ToArray());
+            var topic = e.ApplicationMessage.Topic;
+            if (Sparkplug.SparkplugReader.Owns(topic)) sparkplug.Ingest(topic, payload.IsSingleSegment ? payload.FirstSpan : payload.ToArray());
+            else if (payload.IsSingleSegment) plant.Ingest(topic, payload.FirstSpan);
+            else plant.Ingest(topic, payload.ToArray());
             return Task.CompletedTask;
         };
         // Loops added or removed by a configuration reload: the live session follows (a reconnect subscribes to plant.Topics anyway).
@@ -83,10 +85,11 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
         if (options.UseTls) builder.WithTlsOptions(o => o.UseTls());
         await client.ConnectAsync(builder.Build(), ct);
 
-        await SubscribeAsync(factory, client, plant.Topics, ct);
+        var topics = plant.Topics.Concat(sparkplug.Filters).ToList();
+        await SubscribeAsync(factory, client, topics, ct);
         Interlocked.Increment(ref plant.Connections);
         plant.BrokerConnected = true;
-        AgentLog.Subscribed(log, options.Host, options.Port, plant.Topics.Count);
+        AgentLog.Subscribed(log, options.Host, options.Port, topics.Count);
     }
 
     private static async Task SubscribeAsync(MqttClientFactory factory, IMqttClient client, IEnumerable<string> topics, CancellationToken ct)
@@ -105,8 +108,9 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
         if (!client.IsConnected) return;
         try
         {
-            await SubscribeAsync(factory, client, added, CancellationToken.None);
-            foreach (var chunk in removed.Chunk(500))
+            // Sparkplug tags are read through their edge node's subscription, never subscribed as topics.
+            await SubscribeAsync(factory, client, added.Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)), CancellationToken.None);
+            foreach (var chunk in removed.Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)).Chunk(500))
             {
                 var unsubscribe = factory.CreateUnsubscribeOptionsBuilder();
                 foreach (var topic in chunk) unsubscribe.WithTopicFilter(topic);

@@ -70,8 +70,8 @@ public sealed class PlantState : IPlantView
     /// <summary>The plant's event clock.</summary>
     public PlantClock Clock { get; }
 
-    /// <summary>Every topic the agent subscribes to.</summary>
-    public IReadOnlyCollection<string> Topics => _routes.Keys;
+    /// <summary>Every plain topic the agent subscribes to (Sparkplug tags are covered by their edge node's subscription).</summary>
+    public IReadOnlyCollection<string> Topics => _routes.Keys.Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)).ToList();
 
     /// <summary>The cell of a loop, or null.</summary>
     public LoopCell? Cell(string id) => _byId.GetValueOrDefault(id);
@@ -100,16 +100,25 @@ public sealed class PlantState : IPlantView
         var reason = PayloadDecoder.Decode(payload, route.ValueKind, out var value);
         if (reason != RejectReason.None)
         {
-            Interlocked.Increment(ref route.Rejected);
-            Interlocked.Increment(ref _rejected);
-            Interlocked.Increment(ref _rejectedBy[(int)reason]);
-            LogReject(topic, reason);
+            Reject(route, topic, reason);
             return reason;
         }
         var ticks = value.Ticks != 0 ? value.Ticks : _time.GetUtcNow().UtcTicks;
         Take(route, ticks, value.Value, value.Quality);
         return RejectReason.None;
     }
+
+    /// <summary>Counts a value of a known route that could not be read (payloads decoded elsewhere, such as Sparkplug metrics).</summary>
+    public void Reject(TagRoute route, string topic, RejectReason reason)
+    {
+        Interlocked.Increment(ref route.Rejected);
+        Interlocked.Increment(ref _rejected);
+        Interlocked.Increment(ref _rejectedBy[(int)reason]);
+        LogReject(topic, reason);
+    }
+
+    /// <summary>Counts a message taken by another reader of the same subscription (Sparkplug).</summary>
+    public void CountReceived() => Interlocked.Increment(ref _received);
 
     /// <summary>Takes one decoded value for a known route (the path offline analysis uses).</summary>
     public void Take(TagRoute route, long ticks, double value, SampleQuality quality)

@@ -24,6 +24,7 @@ public sealed class LoopMonitor
     private bool _slotEmitted;
     private long _lastUpdateTicks;
     private long _samples, _bad, _late;
+    private byte _lost;
 
     /// <summary>A monitor for <paramref name="spec"/>; <paramref name="sink"/> hears every finding change.</summary>
     public LoopMonitor(LoopSpec spec, Action<FindingChange>? sink = null, IReadOnlyList<LoopDetector>? detectors = null)
@@ -60,13 +61,14 @@ public sealed class LoopMonitor
         {
             if (_slot != long.MinValue && !_slotEmitted && _seen != 0) Emit();
             var gap = ticks - _lastUpdateTicks;
-            if (_lastUpdateTicks != 0 && gap > _staleTicks) Resume(ticks);
+            if (_lastUpdateTicks != 0 && gap > _staleTicks && _lost == 0) Resume(ticks);
             else if (_slot != long.MinValue && _slotEmitted) FillGap(slot);
             _slot = slot;
             _seen = 0;
             _slotEmitted = false;
         }
         if (ticks > _lastUpdateTicks) _lastUpdateTicks = ticks;
+        if (_lost != 0 && (_lost &= (byte)~(1 << (int)signal)) == 0) Resume(ticks);
         Hold(signal, value, quality);
         _seen |= (byte)(1 << (int)signal);
         if (!_slotEmitted && (_seen & _required) == _required) Emit();
@@ -84,6 +86,18 @@ public sealed class LoopMonitor
             Board.Set(new StaleFinding(new DateTimeOffset(_lastUpdateTicks, TimeSpan.Zero), null, Spec.Limits.StaleSeconds));
             foreach (var d in _detectors) d.Reset();
         }
+    }
+
+    /// <summary>
+    /// The source of <paramref name="signal"/> reported itself offline at event time <paramref name="ticks"/> (a
+    /// Sparkplug death certificate): the loop is stale at once, and stays so until that signal delivers again.
+    /// </summary>
+    public void SourceLost(Signal signal, long ticks, string source)
+    {
+        _lost |= (byte)(1 << (int)signal);
+        if (IsStale) return;
+        Board.Set(new SourceOfflineFinding(new DateTimeOffset(ticks, TimeSpan.Zero), null, source));
+        foreach (var d in _detectors) d.Reset();
     }
 
     /// <summary>The loop's statistics over its analysis window.</summary>
@@ -132,7 +146,8 @@ public sealed class LoopMonitor
 
     private void Step(long ticks)
     {
-        if (double.IsNaN(_pv) || double.IsNaN(_op)) return;
+        // While a source is offline its held value is not current: the detectors see nothing rather than a frozen tag.
+        if (_lost != 0 || double.IsNaN(_pv) || double.IsNaN(_op)) return;
         var sample = new AlignedSample(ticks, _pv, _sp, _op, _position, _mode, _pvGood);
         _samples++;
         foreach (var d in _detectors) d.Step(sample, Board);

@@ -51,9 +51,16 @@ public sealed class Mosquitto : IAsyncDisposable
     }
 
     /// <summary>Runs a mosquitto client tool (mosquitto_pub) against this broker and waits for it.</summary>
-    public async Task PublishAsync(string topic, string message, int qos = 0)
+    public Task PublishAsync(string topic, string message, int qos = 0, bool retain = false) =>
+        MosquittoPubAsync(["-t", topic, "-m", message, "-q", qos.ToString(), .. retain ? new[] { "-r" } : []]);
+
+    /// <summary>Publishes the bytes of <paramref name="file"/> with mosquitto_pub -f (binary payloads such as Sparkplug).</summary>
+    public Task PublishFileAsync(string topic, string file, bool retain = false) =>
+        MosquittoPubAsync(["-t", topic, "-f", file, "-q", "1", .. retain ? new[] { "-r" } : []]);
+
+    private async Task MosquittoPubAsync(string[] args)
     {
-        var psi = new ProcessStartInfo(Tool("mosquitto_pub"), ["-h", "127.0.0.1", "-p", Port.ToString(), "-t", topic, "-m", message, "-q", qos.ToString()])
+        var psi = new ProcessStartInfo(Tool("mosquitto_pub"), ["-h", "127.0.0.1", "-p", Port.ToString(), .. args])
         { RedirectStandardError = true, UseShellExecute = false };
         using var pub = Process.Start(psi)!;
         var err = await pub.StandardError.ReadToEndAsync();

@@ -5,7 +5,7 @@ using Microsoft.AspNetCore.Builder;
 
 namespace LoopWatch.Agent;
 
-/// <summary>Parses the verb and dispatches: <c>demo</c>, <c>run</c>, <c>check</c>.</summary>
+/// <summary>Parses the verb and dispatches: <c>demo</c>, <c>run</c>, <c>check</c>, <c>analyze</c>, <c>user</c>, <c>bench</c>.</summary>
 public static class Cli
 {
     private const string Usage = """
@@ -16,6 +16,8 @@ public static class Cli
           loopwatch analyze --config FILE [--format text|json|csv|html] [--out FILE] [--from T] [--to T] [--strict] FILE...
                                                                           historian CSV files through the same analytics
           loopwatch user add NAME --role viewer|operator|maintenance|admin [--data-dir DIR]   add a dashboard user
+          loopwatch bench [--loops N] [--rate R] [--seconds S] [--in-process] [--broker HOST:PORT]
+                                                                          measure capacity on this machine (table, then JSON)
         """;
 
     /// <summary>Runs one verb to completion; 0 ok, 1 runtime failure, 2 usage or configuration error.</summary>
@@ -33,6 +35,8 @@ public static class Cli
                 return await RunAgentAsync(verb, cli, errors, stdout, stderr, stop);
             case "analyze":
                 return Analyze.AnalyzeCommand.Run(args.Skip(1), stdout, stderr);
+            case "bench":
+                return await Bench.BenchCommand.RunAsync(args.Skip(1), stdout, stderr, stop);
             case "user":
                 return await UserVerb.RunAsync(cli, errors, stdin ?? Console.In, stdout, stderr);
             default:

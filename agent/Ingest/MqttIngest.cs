@@ -11,7 +11,7 @@ namespace LoopWatch.Agent.Ingest;
 /// The agent's MQTT subscription: an ordinary client of whatever broker the configuration names, subscribed to every
 /// loop tag, reconnecting with backoff. It only reads; it never publishes on a plant tag.
 /// </summary>
-public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProvider time, ILogger<MqttIngest> log) : BackgroundService
+public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProvider time, ILogger<MqttIngest> log, IngestTap? tap = null) : BackgroundService
 {
     private IMqttClient? _client;
 
@@ -24,8 +24,10 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, TimeProv
         client.ApplicationMessageReceivedAsync += e =>
         {
             var payload = e.ApplicationMessage.Payload;
-            if (payload.IsSingleSegment) plant.Ingest(e.ApplicationMessage.Topic, payload.FirstSpan);
-            else plant.Ingest(e.ApplicationMessage.Topic, payload.ToArray());
+            var reason = payload.IsSingleSegment
+                ? plant.Ingest(e.ApplicationMessage.Topic, payload.FirstSpan)
+                : plant.Ingest(e.ApplicationMessage.Topic, payload.ToArray());
+            tap?.Invoke(e.ApplicationMessage, reason);
             return Task.CompletedTask;
         };
         client.DisconnectedAsync += e =>

@@ -72,7 +72,7 @@ public static class Cli
         }
         if (verb == "check")
         {
-            stdout.WriteLine($"configuration ok: {specs.Count} loops");
+            stdout.WriteLine($"configuration ok: {specs.Count} loops" + (options.Shard.Count > 1 ? $" in shard {options.Shard.Index} of {options.Shard.Count} ({options.Loops.Count} in all)" : ""));
             return 0;
         }
 
@@ -89,7 +89,7 @@ public static class Cli
             return 1;
         }
         var b = options.Broker;
-        stdout.WriteLine($"LoopWatch {verb}: {specs.Count} loops");
+        stdout.WriteLine($"LoopWatch {verb}: {specs.Count} loops" + (options.Shard.Count > 1 ? $" (shard {options.Shard.Index} of {options.Shard.Count})" : ""));
         stdout.WriteLine($"  MQTT broker : mqtt://{b.Host}:{b.Port}{(b.Embedded ? " (embedded)" : "")}");
         stdout.WriteLine($"  dashboard   : {string.Join(", ", AgentHost.DashboardAddresses(app))}");
         stdout.WriteLine($"  data folder : {Path.GetFullPath(options.DataDir)}");

@@ -16,4 +16,6 @@ public sealed class AgentOptions
     public List<LoopOptions> Loops { get; set; } = [];
 
     public AlarmSystemOptions AlarmSystem { get; set; } = new();
+
+    public ShardOptions Shard { get; set; } = new();
 }

@@ -5,7 +5,7 @@ using Microsoft.AspNetCore.Builder;
 
 namespace LoopWatch.Agent;
 
-/// <summary>Parses the verb and dispatches: <c>demo</c>, <c>run</c>, <c>check</c>, <c>analyze</c>, <c>user</c>, <c>bench</c>.</summary>
+/// <summary>Parses the verb and dispatches: <c>demo</c>, <c>run</c>, <c>check</c>, <c>analyze</c>, <c>user</c>, <c>report</c>, <c>bench</c>.</summary>
 public static class Cli
 {
     private const string Usage = """
@@ -16,6 +16,8 @@ public static class Cli
           loopwatch analyze --config FILE [--format text|json|csv|html] [--out FILE] [--from T] [--to T] [--strict] FILE...
                                                                           historian CSV files through the same analytics
           loopwatch user add NAME --role viewer|operator|maintenance|admin [--data-dir DIR]   add a dashboard user
+          loopwatch report weekly --db FILE [--db FILE...] [--week YYYY-MM-DD] [--config FILE] [--format text|csv]
+                                                                          plant-wide weekly figures from one or more agents' databases
           loopwatch bench [--loops N] [--rate R] [--seconds S] [--in-process] [--broker HOST:PORT]
                                                                           measure capacity on this machine (table, then JSON)
         """;
@@ -35,6 +37,8 @@ public static class Cli
                 return await RunAgentAsync(verb, cli, errors, stdout, stderr, stop);
             case "analyze":
                 return Analyze.AnalyzeCommand.Run(args.Skip(1), stdout, stderr);
+            case "report":
+                return await Report.ReportCommand.RunAsync(args.Skip(1), stdout, stderr, TimeProvider.System, stop);
             case "bench":
                 return await Bench.BenchCommand.RunAsync(args.Skip(1), stdout, stderr, stop);
             case "user":

@@ -1,22 +1,20 @@
-using System.Buffers;
 using System.Diagnostics;
-using MQTTnet;
-using MQTTnet.Formatter;
-using MQTTnet.Protocol;
+using System.Text;
 
 namespace LoopWatch.Agent.Bench;
 
 /// <summary>
 /// Publishes the bench plant over MQTT (QoS 0, MQTT 5, a sequence number and the publish time in the correlation
-/// data) through <see cref="Publishers"/> clients, each owning every n-th loop so each tag's values stay in order:
+/// data) through <see cref="Publishers"/> connections, each owning every n-th loop so each tag's values stay in order:
 /// paced to a fixed rate, or flat out while at most <see cref="Window"/> messages are ahead of the consumer.
 /// </summary>
 internal sealed class BenchGenerator(string host, int port, int loops)
 {
+    private const int MaxBatch = 2_000;
     private long _seq;
     private long _firstTicks, _lastTicks;
 
-    /// <summary>Publishing clients (one per core is enough to outrun one subscriber).</summary>
+    /// <summary>Publishing connections.</summary>
     public int Publishers { get; init; } = 2;
 
     /// <summary>Flat out: most messages published and not yet taken by the consumer.</summary>
@@ -37,21 +35,15 @@ internal sealed class BenchGenerator(string host, int port, int loops)
     /// </summary>
     public async Task RunAsync(double? rate, TimeSpan duration, TimeSpan warmUp, Func<long> consumed, Action<long> warmedUp, CancellationToken ct)
     {
-        var factory = new MqttClientFactory();
-        var clients = new List<IMqttClient>();
+        var wires = new List<WirePublisher>();
         try
         {
             for (var p = 0; p < Publishers; p++)
             {
-                var c = factory.CreateMqttClient();
-                clients.Add(c);
-                await c.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer(host, port).WithClientId($"loopwatch-bench-gen-{p}-{Guid.NewGuid():N}")
-                    .WithProtocolVersion(MqttProtocolVersion.V500).WithCleanSession().Build(), ct);
+                var w = new WirePublisher();
+                wires.Add(w);
+                await w.ConnectAsync(host, port, $"loopwatch-bench-gen-{p}-{Guid.NewGuid():N}", ct);
             }
-            var topics = new string[loops * BenchOptions.TagsPerLoop];
-            for (var i = 0; i < loops; i++)
-                for (var t = 0; t < BenchOptions.TagsPerLoop; t++) topics[i * BenchOptions.TagsPerLoop + t] = BenchPlant.Topic(i, t);
-
             _firstTicks = Stopwatch.GetTimestamp();
             var endTicks = _firstTicks + (long)(duration.TotalSeconds * Stopwatch.Frequency);
             var warmTicks = _firstTicks + (long)(warmUp.TotalSeconds * Stopwatch.Frequency);
@@ -61,52 +53,51 @@ internal sealed class BenchGenerator(string host, int port, int loops)
                 if (now >= warmTicks && Interlocked.Exchange(ref warmed, 1) == 0) warmedUp(Published);
             }
             var share = rate / Publishers;
-            await Task.WhenAll(clients.Select((c, p) => Task.Run(() => PublishAsync(c, p, topics, share, endTicks, consumed, CheckWarm, ct), ct)));
+            await Task.WhenAll(wires.Select((w, p) => Task.Run(() => PublishAsync(w, p, share, endTicks, consumed, CheckWarm, ct), ct)));
             _lastTicks = Stopwatch.GetTimestamp();
         }
         finally
         {
-            foreach (var c in clients)
-            {
-                try { if (c.IsConnected) await c.DisconnectAsync(new MqttClientDisconnectOptionsBuilder().Build(), CancellationToken.None); }
-                catch (Exception) { /* the broker may be gone already */ }
-                c.Dispose();
-            }
+            foreach (var w in wires) await w.DisposeAsync();
         }
     }
 
-    private async Task PublishAsync(IMqttClient client, int publisher, string[] topics, double? rate, long endTicks,
-        Func<long> consumed, Action<long> checkWarm, CancellationToken ct)
+    private async Task PublishAsync(WirePublisher wire, int publisher, double? rate, long endTicks, Func<long> consumed, Action<long> checkWarm, CancellationToken ct)
     {
-        long sent = 0;
-        var start = _firstTicks;
-        for (long round = 0; ; round++)
+        // This publisher's tags in order: its loops (every n-th), each PV, SP, OP; one pass is one round.
+        var owned = new List<(int Loop, int Tag, byte[] Topic)>();
+        for (var i = publisher; i < loops; i += Publishers)
+            for (var t = 0; t < BenchOptions.TagsPerLoop; t++) owned.Add((i, t, Encoding.UTF8.GetBytes(BenchPlant.Topic(i, t))));
+        var payload = new byte[128];
+        long sent = 0, round = 0;
+        var cursor = 0;
+        var stamp = BenchPlant.Stamp(0);
+        while (!ct.IsCancellationRequested)
         {
-            for (var i = publisher; i < loops; i += Publishers)
+            var now = Stopwatch.GetTimestamp();
+            if (now >= endTicks) return;
+            checkWarm(now);
+            var allowed = rate is { } r ? (long)(r * (now - _firstTicks) / Stopwatch.Frequency) - sent : Window - (Published - consumed());
+            if (allowed <= 0)
             {
-                for (var t = 0; t < BenchOptions.TagsPerLoop; t++)
+                await Task.Delay(1, ct).ConfigureAwait(ConfigureAwaitOptions.SuppressThrowing);
+                continue;
+            }
+            var n = (int)Math.Min(allowed, MaxBatch);
+            var seq = Interlocked.Add(ref _seq, n) - n;
+            for (var k = 0; k < n; k++)
+            {
+                var (loop, tag, topic) = owned[cursor];
+                var length = BenchPlant.Payload(payload, BenchPlant.Value(loop, tag, round), stamp);
+                wire.Add(topic, payload.AsSpan(0, length), seq + k, now);
+                if (++cursor == owned.Count)
                 {
-                    while (true)
-                    {
-                        var now = Stopwatch.GetTimestamp();
-                        if (now >= endTicks || ct.IsCancellationRequested) return;
-                        checkWarm(now);
-                        var due = rate is { } r ? sent < r * (now - start) / Stopwatch.Frequency : Published - consumed() < Window;
-                        if (due) break;
-                        await Task.Delay(1, ct).ConfigureAwait(ConfigureAwaitOptions.SuppressThrowing);
-                    }
-                    var seq = Interlocked.Increment(ref _seq) - 1;
-                    var message = new MqttApplicationMessage
-                    {
-                        Topic = topics[i * BenchOptions.TagsPerLoop + t],
-                        Payload = new ReadOnlySequence<byte>(BenchPlant.Payload(BenchPlant.Value(i, t, round), round)),
-                        QualityOfServiceLevel = MqttQualityOfServiceLevel.AtMostOnce,
-                        CorrelationData = BenchStamp.Write(seq, Stopwatch.GetTimestamp()),
-                    };
-                    await client.PublishAsync(message, ct);
-                    sent++;
+                    cursor = 0;
+                    stamp = BenchPlant.Stamp(++round);
                 }
             }
+            await wire.FlushAsync(ct);
+            sent += n;
         }
     }
 }

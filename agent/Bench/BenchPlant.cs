@@ -48,20 +48,28 @@ internal static class BenchPlant
     /// <summary>Event-time ticks of round <paramref name="round"/>.</summary>
     public static long Ticks(long round) => Start.UtcTicks + round * TimeSpan.TicksPerSecond;
 
-    /// <summary>The payload <c>{"value":V,"timestamp":"..."}</c>.</summary>
-    public static byte[] Payload(double value, long round)
+    /// <summary>The event time of round <paramref name="round"/> as the payload writes it, <c>"2026-03-02T06:00:01Z"</c> with the quotes.</summary>
+    public static byte[] Stamp(long round)
     {
-        Span<byte> buffer = stackalloc byte[96];
-        "{\"value\":"u8.CopyTo(buffer);
+        Span<byte> b = stackalloc byte[32];
+        b[0] = (byte)'"';
+        new DateTimeOffset(Ticks(round), TimeSpan.Zero).TryFormat(b[1..], out var n, "yyyy-MM-ddTHH:mm:ssZ", System.Globalization.CultureInfo.InvariantCulture);
+        b[n + 1] = (byte)'"';
+        return b[..(n + 2)].ToArray();
+    }
+
+    /// <summary>Writes the payload <c>{"value":V,"timestamp":"..."}</c> into <paramref name="b"/>; returns its length.</summary>
+    public static int Payload(Span<byte> b, double value, ReadOnlySpan<byte> stamp)
+    {
+        "{\"value\":"u8.CopyTo(b);
         var n = 9;
-        value.TryFormat(buffer[n..], out var w, "0.###", System.Globalization.CultureInfo.InvariantCulture);
+        value.TryFormat(b[n..], out var w, "0.###", System.Globalization.CultureInfo.InvariantCulture);
         n += w;
-        ",\"timestamp\":\""u8.CopyTo(buffer[n..]);
-        n += 14;
-        new DateTimeOffset(Ticks(round), TimeSpan.Zero).TryFormat(buffer[n..], out w, "yyyy-MM-ddTHH:mm:ssZ", System.Globalization.CultureInfo.InvariantCulture);
-        n += w;
-        "\"}"u8.CopyTo(buffer[n..]);
-        n += 2;
-        return buffer[..n].ToArray();
+        ",\"timestamp\":"u8.CopyTo(b[n..]);
+        n += 13;
+        stamp.CopyTo(b[n..]);
+        n += stamp.Length;
+        b[n++] = (byte)'}';
+        return n;
     }
 }

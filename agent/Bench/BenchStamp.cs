@@ -7,12 +7,10 @@ internal static class BenchStamp
 {
     public const int Length = 16;
 
-    public static byte[] Write(long seq, long sentTicks)
+    public static void Write(Span<byte> b, long seq, long sentTicks)
     {
-        var b = new byte[Length];
         BinaryPrimitives.WriteInt64LittleEndian(b, seq);
-        BinaryPrimitives.WriteInt64LittleEndian(b.AsSpan(8), sentTicks);
-        return b;
+        BinaryPrimitives.WriteInt64LittleEndian(b[8..], sentTicks);
     }
 
     public static bool TryRead(byte[]? b, out long seq, out long sentTicks)

@@ -56,6 +56,6 @@ internal static class InProcessBench
         var heapAfter = GC.GetTotalMemory(forceFullCollection: true);
         GC.KeepAlive(plant);
         return new BenchResult("in-process, one thread; processed = per CPU second", o.Loops, (long)updates, (long)updates, updates / wall, updates / Math.Max(cpu, 1e-9),
-            null, null, 0, 0, null, null, cores, gauge.PeakRssMb, (heapAfter - heapBefore) / (double)o.Loops);
+            null, null, 0, 0, null, null, cores, gauge.PeakRssMb, (heapAfter - heapBefore) / (double)o.Loops, cpu * 1e6 / updates);
     }
 }

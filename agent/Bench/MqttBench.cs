@@ -78,21 +78,30 @@ internal static class MqttBench
                 }
 
                 var gen = new BenchGenerator(host, port, o.Loops);
+                using var reporting = new CancellationTokenSource();
+                var report = ReportAsync(gen, tally, plant, progress, reporting.Token);
                 gauge.Mark();
+                var countAtMark = 0L;
                 await gen.RunAsync(o.Rate, duration, warmUp, () => tally.Count, seq =>
                 {
                     Volatile.Write(ref tally.TimeFrom, seq);
+                    countAtMark = tally.Count;
                     gauge.Mark();
                 }, ct);
                 var cores = gauge.Cores();
+                var cpuPerUpdate = gauge.CpuSeconds() * 1e6 / Math.Max(1, tally.Count - countAtMark);
                 await DrainAsync(gen, tally, ct);
+                await reporting.CancelAsync();
+                await report;
                 var processed = PerSecond(gen, tally);
+                var counters = plant.Counters();
+                progress.WriteLine($"bench: agent ingest counters: received {counters.Received}, accepted {counters.Accepted}, rejected {counters.Rejected}, unknown topic {counters.UnknownTopic}, late {counters.Late}, reconnects {counters.Reconnects}");
                 var heapAfter = GC.GetTotalMemory(forceFullCollection: true);
                 var rss = gauge.PeakRssMb;
                 await app.StopAsync(CancellationToken.None);
                 return new BenchResult(o.Rate is null ? "MQTT, flat out" : "MQTT, fixed rate", o.Loops, gen.Published, tally.Count, gen.OfferedPerSecond, processed,
                     baseline, baseline is > 0 ? processed / baseline : null, gen.Published - tally.Count, tally.Duplicates,
-                    tally.Latency.Percentile(0.99), tally.Latency.Percentile(0.5), cores, rss, (heapAfter - heapBefore) / (double)o.Loops);
+                    tally.Latency.Percentile(0.99), tally.Latency.Percentile(0.5), cores, rss, (heapAfter - heapBefore) / (double)o.Loops, cpuPerUpdate);
             }
             finally
             {
@@ -110,16 +119,27 @@ internal static class MqttBench
         }
     }
 
-    // Until everything published has arrived, or nothing more has come for 5 s (the rest is lost).
+    // Until everything published has arrived, or nothing more has come for 30 s (the rest is lost); a loaded machine stalls for seconds.
     private static async Task DrainAsync(BenchGenerator gen, Tally tally, CancellationToken ct)
     {
         var last = -1L;
         var idle = Stopwatch.StartNew();
-        while (tally.Count < gen.Published && idle.Elapsed < TimeSpan.FromSeconds(5))
+        while (tally.Count < gen.Published && idle.Elapsed < TimeSpan.FromSeconds(30))
         {
             var now = tally.Count;
             if (now != last) { last = now; idle.Restart(); }
             await Task.Delay(20, ct);
+        }
+    }
+
+    // A line every 10 s on stderr, so a long run shows whether the agent keeps up.
+    private static async Task ReportAsync(BenchGenerator gen, Tally tally, PlantState plant, TextWriter progress, CancellationToken ct)
+    {
+        var clock = Stopwatch.StartNew();
+        while (!ct.IsCancellationRequested)
+        {
+            await Task.Delay(10_000, ct).ConfigureAwait(ConfigureAwaitOptions.SuppressThrowing);
+            progress.WriteLine($"bench: {clock.Elapsed.TotalSeconds,6:0} s  published {gen.Published,12:N0}  processed {tally.Count,12:N0}  behind {gen.Published - tally.Count,10:N0}  agent received {plant.Counters().Received,12:N0}");
         }
     }
 

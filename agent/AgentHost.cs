@@ -39,6 +39,9 @@ public static class AgentHost
 
         var services = builder.Services;
         var opts = setup.Options;
+        // Agents of one plant share a broker, where the client id names the (persistent) session: one per shard.
+        if (opts.Shard.Count > 1 && !opts.Broker.ClientId.EndsWith(ShardSuffix(opts.Shard), StringComparison.Ordinal))
+            opts.Broker.ClientId += ShardSuffix(opts.Shard);
         services.AddSingleton(setup.Time);
         services.AddSingleton(opts);
         services.AddSingleton(opts.Broker);
@@ -117,6 +120,8 @@ public static class AgentHost
     /// <summary>The addresses Kestrel actually listens on (useful when the configuration asked for port 0).</summary>
     public static IReadOnlyList<string> DashboardAddresses(WebApplication app) =>
         app.Services.GetRequiredService<IServer>().Features.Get<IServerAddressesFeature>()?.Addresses.ToList() ?? [];
+
+    private static string ShardSuffix(Configuration.ShardOptions shard) => $"-shard-{shard.Index}-of-{shard.Count}";
 
     private static Action<Analytics.Findings.FindingChange> FindingLog(ILogger log) =>
         change =>

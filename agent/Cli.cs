@@ -7,7 +7,7 @@ using Microsoft.Extensions.Logging;
 
 namespace LoopWatch.Agent;
 
-/// <summary>Parses the verb and dispatches: <c>demo</c>, <c>run</c>, <c>check</c>.</summary>
+/// <summary>Parses the verb and dispatches: <c>demo</c>, <c>run</c>, <c>check</c>, <c>analyze</c>, <c>user</c>, <c>report</c>, <c>bench</c>.</summary>
 public static class Cli
 {
     private const string Usage = """
@@ -19,6 +19,10 @@ public static class Cli
                                                                           historian CSV files through the same analytics
           loopwatch discover --broker HOST:PORT [--seconds 30] [--out FILE]   listen and propose a configuration to review
           loopwatch user add NAME --role viewer|operator|maintenance|admin [--data-dir DIR]   add a dashboard user
+          loopwatch report weekly --db FILE [--db FILE...] [--week YYYY-MM-DD] [--config FILE] [--format text|csv]
+                                                                          plant-wide weekly figures from one or more agents' databases
+          loopwatch bench [--loops N] [--rate R] [--seconds S] [--in-process] [--broker HOST:PORT]
+                                                                          measure capacity on this machine (table, then JSON)
         """;
 
     /// <summary>Runs one verb to completion; 0 ok, 1 runtime failure, 2 usage or configuration error.</summary>
@@ -38,6 +42,10 @@ public static class Cli
                 return Analyze.AnalyzeCommand.Run(args.Skip(1), stdout, stderr);
             case "discover":
                 return await Discovery.DiscoverCommand.RunAsync(cli, errors, stdout, stderr, TimeProvider.System, stop);
+            case "report":
+                return await Report.ReportCommand.RunAsync(args.Skip(1), stdout, stderr, TimeProvider.System, stop);
+            case "bench":
+                return await Bench.BenchCommand.RunAsync(args.Skip(1), stdout, stderr, stop);
             case "user":
                 return await UserVerb.RunAsync(cli, errors, stdin ?? Console.In, stdout, stderr);
             default:
@@ -74,7 +82,7 @@ public static class Cli
         }
         if (verb == "check")
         {
-            stdout.WriteLine($"configuration ok: {specs.Count} loops");
+            stdout.WriteLine($"configuration ok: {specs.Count} loops" + (options.Shard.Count > 1 ? $" in shard {options.Shard.Index} of {options.Shard.Count} ({options.Loops.Count} in all)" : ""));
             return 0;
         }
 
@@ -106,7 +114,7 @@ public static class Cli
     private static void PrintBanner(TextWriter stdout, string verb, int loops, AgentOptions options, string addresses, double? speed)
     {
         var b = options.Broker;
-        stdout.WriteLine($"LoopWatch {verb}: {loops} loops");
+        stdout.WriteLine($"LoopWatch {verb}: {loops} loops" + (options.Shard.Count > 1 ? $" (shard {options.Shard.Index} of {options.Shard.Count})" : ""));
         stdout.WriteLine($"  MQTT broker : mqtt://{b.Host}:{b.Port}{(b.Embedded ? " (embedded)" : "")}");
         stdout.WriteLine($"  dashboard   : {addresses}");
         stdout.WriteLine($"  data folder : {Path.GetFullPath(options.DataDir)}");

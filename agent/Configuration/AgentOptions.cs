@@ -18,4 +18,6 @@ public sealed class AgentOptions
     public AlarmSystemOptions AlarmSystem { get; set; } = new();
 
     public SparkplugOptions Sparkplug { get; set; } = new();
+
+    public ShardOptions Shard { get; set; } = new();
 }

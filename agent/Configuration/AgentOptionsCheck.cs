@@ -5,7 +5,7 @@ namespace LoopWatch.Agent.Configuration;
 /// <summary>Checks everything in <see cref="AgentOptions"/>; each message names the key.</summary>
 public static class AgentOptionsCheck
 {
-    /// <summary>Returns the loop specs; <paramref name="errors"/> lists every problem found.</summary>
+    /// <summary>Returns the specs of the loops this agent takes (its shard); <paramref name="errors"/> lists every problem found.</summary>
     public static IReadOnlyList<LoopSpec> Check(AgentOptions options, List<string> errors)
     {
         var b = options.Broker;
@@ -33,6 +33,10 @@ public static class AgentOptionsCheck
         errors.AddRange(options.AlarmSystem.Check(options.Loops.SelectMany(l => new[] { l.Pv?.Tag, l.Sp?.Tag, l.Op?.Tag, l.Mode?.Tag, l.Position?.Tag }).OfType<string>()));
         errors.AddRange(options.Sparkplug.Check(options.Loops.SelectMany((l, i) => new[] { ("Pv", l.Pv), ("Sp", l.Sp), ("Op", l.Op), ("Mode", l.Mode), ("Position", l.Position) }
             .Where(s => s.Item2?.Tag is { Length: > 0 }).Select(s => ($"Loops:{i} ({l.Id}): {s.Item1}:Tag", s.Item2!.Tag!)))));
-        return LoopOptionsCheck.Check(options.Loops, errors);
+        var shardErrors = options.Shard.Check().ToList();
+        errors.AddRange(shardErrors);
+        // Every loop is checked whichever agent takes it, so all agents of a plant agree on a valid list.
+        var specs = LoopOptionsCheck.Check(options.Loops, errors);
+        return options.Shard.Count > 1 && shardErrors.Count == 0 ? specs.Where(s => options.Shard.Takes(s.Id)).ToList() : specs;
     }
 }

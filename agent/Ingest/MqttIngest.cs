@@ -11,7 +11,7 @@ namespace LoopWatch.Agent.Ingest;
 /// The agent's MQTT subscription: an ordinary client of whatever broker the configuration names, subscribed to every
 /// loop tag, reconnecting with backoff. It only reads; it never publishes on a plant tag.
 /// </summary>
-public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplug.SparkplugReader sparkplug, TimeProvider time, ILogger<MqttIngest> log) : BackgroundService
+public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplug.SparkplugReader sparkplug, TimeProvider time, ILogger<MqttIngest> log, IngestTap? tap = null) : BackgroundService
 {
     private IMqttClient? _client;
 
@@ -25,9 +25,13 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
         {
             var payload = e.ApplicationMessage.Payload;
             var topic = e.ApplicationMessage.Topic;
-            if (Sparkplug.SparkplugReader.Owns(topic)) sparkplug.Ingest(topic, payload.IsSingleSegment ? payload.FirstSpan : payload.ToArray());
-            else if (payload.IsSingleSegment) plant.Ingest(topic, payload.FirstSpan);
-            else plant.Ingest(topic, payload.ToArray());
+            if (Sparkplug.SparkplugReader.Owns(topic))
+            {
+                sparkplug.Ingest(topic, payload.IsSingleSegment ? payload.FirstSpan : payload.ToArray());
+                return Task.CompletedTask;
+            }
+            var reason = payload.IsSingleSegment ? plant.Ingest(topic, payload.FirstSpan) : plant.Ingest(topic, payload.ToArray());
+            tap?.Invoke(e.ApplicationMessage, reason);
             return Task.CompletedTask;
         };
         // Loops added or removed by a configuration reload: the live session follows (a reconnect subscribes to plant.Topics anyway).

@@ -49,12 +49,6 @@ public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSch
         return true;
     }
 
-    private async Task<WeeklySummary> SummaryAsync(ReportWeek w, CancellationToken ct)
-    {
-        long from = w.Start.ToUnixTimeMilliseconds(), to = w.End.ToUnixTimeMilliseconds();
-        var hourly = await reader.ReadHourlyStatsAsync(from, to, ct);
-        var journal = await reader.ReadJournalAsync(new JournalQuery(from, to, Limit: 1_000_000, OldestFirst: true), ct);
-        var areas = plant.Loops().Select(l => KeyValuePair.Create(l.Id, l.Area)).ToList();
-        return WeeklySummary.Compute(w, hourly, areas, journal);
-    }
+    private Task<WeeklySummary> SummaryAsync(ReportWeek w, CancellationToken ct) =>
+        WeeklyRead.SummaryAsync([reader], w, plant.Loops().Select(l => KeyValuePair.Create(l.Id, l.Area)).ToList(), ct);
 }

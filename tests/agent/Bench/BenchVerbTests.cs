@@ -1,0 +1,85 @@
+using System.Text.Json;
+using LoopWatch.Agent.Tests.Infrastructure;
+
+namespace LoopWatch.Agent.Tests.Bench;
+
+/// <summary>
+/// The bench verb end to end with a small plant: the JSON line parses with the fixed keys and every update offered
+/// reaches the agent's ingest path exactly once. No speed is asserted here; figures come from running the verb.
+/// </summary>
+public sealed class BenchVerbTests
+{
+    private static readonly string[] Keys =
+        ["loops", "tags", "offered_per_s", "processed_per_s", "baseline_per_s", "ratio", "lost", "p99_latency_ms", "cpu_cores", "rss_mb", "bytes_per_loop"];
+
+    [Fact]
+    public async Task Fixed_rate_on_the_embedded_broker_loses_nothing_and_processes_every_update_offered()
+    {
+        var (json, offered, processed) = await BenchAsync("--loops", "200", "--rate", "3000", "--seconds", "3");
+        Assert.Equal(200, json.GetProperty("loops").GetInt32());
+        Assert.Equal(600, json.GetProperty("tags").GetInt32());
+        Assert.Equal(0, json.GetProperty("lost").GetInt64());
+        Assert.True(offered > 0);
+        Assert.Equal(offered, processed);
+        Assert.Equal(JsonValueKind.Null, json.GetProperty("baseline_per_s").ValueKind); // the bare subscriber runs only flat out
+        Assert.Equal(JsonValueKind.Number, json.GetProperty("p99_latency_ms").ValueKind);
+        Assert.True(json.GetProperty("rss_mb").GetDouble() > 0);
+    }
+
+    [Fact]
+    public async Task Flat_out_measures_the_bare_subscriber_and_the_agent_on_the_same_stream()
+    {
+        var (json, offered, processed) = await BenchAsync("--loops", "200", "--seconds", "2");
+        Assert.Equal(0, json.GetProperty("lost").GetInt64());
+        Assert.Equal(offered, processed);
+        var baseline = json.GetProperty("baseline_per_s").GetDouble();
+        Assert.True(baseline > 0);
+        Assert.Equal(json.GetProperty("processed_per_s").GetDouble() / baseline, json.GetProperty("ratio").GetDouble(), 2);
+    }
+
+    [Fact]
+    public async Task An_external_mosquitto_carries_the_stream_to_the_agent_without_loss()
+    {
+        await using var broker = await Mosquitto.StartAsync();
+        var (json, offered, processed) = await BenchAsync("--loops", "200", "--rate", "3000", "--seconds", "3", "--broker", $"127.0.0.1:{broker.Port}");
+        Assert.Equal(0, json.GetProperty("lost").GetInt64());
+        Assert.True(offered > 0);
+        Assert.Equal(offered, processed);
+    }
+
+    [Fact]
+    public async Task In_process_mode_feeds_the_analytics_without_mqtt()
+    {
+        var (json, offered, processed) = await BenchAsync("--in-process", "--loops", "200", "--seconds", "1");
+        Assert.Equal(offered, processed);
+        Assert.True(offered >= 2 * 600); // at least the two warm-up rounds of every tag ran through
+        Assert.True(json.GetProperty("processed_per_s").GetDouble() > 0);
+        Assert.Equal(JsonValueKind.Null, json.GetProperty("p99_latency_ms").ValueKind);
+    }
+
+    [Fact]
+    public async Task A_bad_option_is_a_usage_error()
+    {
+        var stdout = new StringWriter();
+        var stderr = new StringWriter();
+        Assert.Equal(2, await Cli.RunAsync(["bench", "--in-process", "--rate", "100"], stdout, stderr));
+        Assert.Contains("--in-process", stderr.ToString());
+        Assert.Equal(2, await Cli.RunAsync(["bench", "--broker", "nowhere"], stdout, stderr));
+        Assert.Contains("--broker", stderr.ToString());
+    }
+
+    private static async Task<(JsonElement Json, long Offered, long Processed)> BenchAsync(params string[] args)
+    {
+        var stdout = new StringWriter();
+        var stderr = new StringWriter();
+        var code = await Cli.RunAsync(["bench", .. args], stdout, stderr);
+        Assert.True(code == 0, $"exit {code}: {stderr}");
+        var lines = stdout.ToString().Split('\n', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries);
+        using var doc = JsonDocument.Parse(lines[^1]);
+        var json = doc.RootElement.Clone();
+        Assert.Equal(Keys, json.EnumerateObject().Select(p => p.Name).ToArray());
+        var counts = lines.Single(l => l.StartsWith("updates offered / processed", StringComparison.Ordinal))
+            .Split(' ', StringSplitOptions.RemoveEmptyEntries)[^3..];
+        return (json, long.Parse(counts[0]), long.Parse(counts[2]));
+    }
+}

@@ -18,6 +18,7 @@ public sealed class SparkplugReader
 {
     private readonly object _gate = new();
     private readonly Dictionary<(string Group, string EdgeNode), SparkplugNode> _nodes = [];
+    private readonly Dictionary<string, SparkplugTopic> _topics = new(StringComparer.Ordinal);
     private readonly PlantState _plant;
     private readonly SparkplugOptions _options;
     private readonly TimeProvider _time;
@@ -73,7 +74,7 @@ public sealed class SparkplugReader
         Interlocked.Increment(ref _messages);
         _plant.CountReceived();
         // Commands are for the edge nodes (our own rebirth requests come back here too); STATE is for primary hosts.
-        if (!SparkplugTopic.TryParse(topic, out var t) || t.Type is SparkplugMessageType.NCmd or SparkplugMessageType.DCmd) return;
+        if (!TryTopic(topic, out var t) || t.Type is SparkplugMessageType.NCmd or SparkplugMessageType.DCmd) return;
         Payload payload;
         try
         {
@@ -94,6 +95,17 @@ public sealed class SparkplugReader
             rebirthReason = Take(node, t, topic, payload);
         }
         if (rebirthReason is not null) NeedRebirth(node, rebirthReason);
+    }
+
+    private bool TryTopic(string topic, out SparkplugTopic t)
+    {
+        // The same few topics come again and again: parse each once (bounded, as a broker could send any number).
+        lock (_gate)
+            if (_topics.TryGetValue(topic, out t)) return true;
+        if (!SparkplugTopic.TryParse(topic, out t)) return false;
+        lock (_gate)
+            if (_topics.Count < 10_000) _topics[topic] = t;
+        return true;
     }
 
     private string? Take(SparkplugNode node, SparkplugTopic t, string topic, Payload payload)
@@ -182,6 +194,7 @@ public sealed class SparkplugReader
     private string? Metrics(SparkplugDevice device, string topic, Payload payload, bool birth)
     {
         string? reason = null;
+        var received = 0L;
         foreach (var metric in payload.Metrics)
         {
             string name;
@@ -223,7 +236,8 @@ public sealed class SparkplugReader
                 continue;
             }
             var ticks = SparkplugValue.Ticks(payload, metric);
-            _plant.Take(route, ticks != 0 ? ticks : _time.GetUtcNow().UtcTicks, value, quality);
+            if (ticks == 0) ticks = received != 0 ? received : received = _time.GetUtcNow().UtcTicks;
+            _plant.Take(route, ticks, value, quality);
         }
         return reason;
     }

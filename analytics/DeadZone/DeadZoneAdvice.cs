@@ -38,7 +38,7 @@ public sealed record DeadZoneAdvice(
         ? [
             $"While off the PV {Way(RateOffPerMin)} at {Text(Math.Abs(RateOffPerMin))} {Unit}/min, while on it {Way(RateOnPerMin)} at {Text(Math.Abs(RateOnPerMin))} {Unit}/min " +
             $"(medians of the least-squares slopes of the last {Halves} off and on periods).",
-            $"The element switches on at {Text(PvAtStart)} {Unit} and off at {Text(PvAtStop)} {Unit} (medians), so the dead zone now is D = {Text(DeadZone)} {Unit}.",
+            $"The element switches on at {Text(PvAtStart)} {Unit} and off at {Text(PvAtStop)} {Unit} (medians of where each period's fitted line stands half a sample before the switching edge), so the dead zone now is D = {Text(DeadZone)} {Unit}.",
             $"Cycle time T = D / {Text(Math.Abs(RateOffPerMin))} + D / {Text(Math.Abs(RateOnPerMin))} = {Text(CycleMin)} min, so 60 / T = {Text(StartsPerHour)} starts/h" +
             (MeasuredStartsPerHour is { } m ? $" (measured from the cycles: {Text(m)} starts/h)." : "."),
             $"For at most {Text(MaxStartsPerHour)} starts/h a cycle must last 60 / {Text(MaxStartsPerHour)} = {Text(TargetCycleMin)} min: " +

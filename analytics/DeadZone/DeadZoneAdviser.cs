@@ -17,6 +17,7 @@ public sealed class DeadZoneAdviser : LoopDetector
     private readonly LoopSpec _spec;
     private readonly ShortCyclingDetector _cycles;
     private readonly DeadZoneOptions _options;
+    private readonly double _halfSampleS;
     private readonly double[] _offRates, _onRates, _onEdges, _offEdges, _scratch;
     private int _offN, _onN, _onEdgeN, _offEdgeN;
     private bool _known, _on;
@@ -31,6 +32,7 @@ public sealed class DeadZoneAdviser : LoopDetector
         _spec = spec;
         _cycles = cycles;
         _options = options ?? new DeadZoneOptions();
+        _halfSampleS = spec.Limits.SampleSeconds / 2;
         var n = Math.Max(1, _options.RecentHalves);
         _offRates = new double[n];
         _onRates = new double[n];
@@ -56,11 +58,11 @@ public sealed class DeadZoneAdviser : LoopDetector
             {
                 if (_on) Push(_onRates, ref _onN, slope);
                 else Push(_offRates, ref _offN, slope);
-            }
-            if (sample.PvGood)
-            {
-                if (on) Push(_onEdges, ref _onEdgeN, sample.Pv);
-                else Push(_offEdges, ref _offEdgeN, sample.Pv);
+                // The switching point is where the ending period's line stands between the last sample before the edge and
+                // the edge sample (the turn fell somewhere in that interval); the edge sample itself is already past it, and noisy.
+                var edge = _half.ValueAt((sample.Ticks - _halfStart) / (double)TimeSpan.TicksPerSecond - _halfSampleS);
+                if (on) Push(_onEdges, ref _onEdgeN, edge);
+                else Push(_offEdges, ref _offEdgeN, edge);
             }
             _on = on;
             _halfStart = sample.Ticks;

@@ -18,6 +18,9 @@ public struct SlopeSums
         _ty += t * y;
     }
 
+    /// <summary>The fitted line's value at <paramref name="t"/>; NaN when there is no slope.</summary>
+    public readonly double ValueAt(double t) => double.IsFinite(Slope) ? (_y - Slope * _t) / Count + Slope * t : double.NaN;
+
     /// <summary>The least-squares slope dy/dt; NaN below three points or when t does not vary.</summary>
     public readonly double Slope
     {

@@ -23,12 +23,11 @@ public sealed class ProportionalBandAdviser : LoopDetector
     private long _block = long.MinValue;
     private int _n;
     private bool _invalid, _manual, _auto;
-    private double _pv, _pv2, _sp, _op;
+    private double _pv, _pv2, _sp, _op, _spMin, _spMax;
 
     private bool _hasPrevious;
     private double _prevPv, _prevSp, _prevOp;
     private bool _prevManual;
-    private long _prevStart;
     private SteadyLevel? _level, _lastLevel;
 
     private (SteadyLevel From, SteadyLevel To)? _pair;
@@ -62,6 +61,8 @@ public sealed class ProportionalBandAdviser : LoopDetector
             _n = 0;
             _invalid = _manual = _auto = false;
             _pv = _pv2 = _sp = _op = 0;
+            _spMin = double.PositiveInfinity;
+            _spMax = double.NegativeInfinity;
         }
         if (!sample.PvGood || double.IsNaN(sample.Sp) || double.IsNaN(sample.Op))
         {
@@ -72,7 +73,10 @@ public sealed class ProportionalBandAdviser : LoopDetector
         _n++;
         _pv += pv;
         _pv2 += pv * pv;
-        _sp += _spec.ToPct(sample.Sp);
+        var sp = _spec.ToPct(sample.Sp);
+        _sp += sp;
+        if (sp < _spMin) _spMin = sp;
+        if (sp > _spMax) _spMax = sp;
         _op += sample.Op;
         if (sample.InAuto) _auto = true;
         else _manual = true;
@@ -104,7 +108,8 @@ public sealed class ProportionalBandAdviser : LoopDetector
         var std = Math.Sqrt(Math.Max(0, _pv2 / _n - pv * pv));
         var start = _block * _blockTicks;
         var end = start + _blockTicks;
-        if (std > _options.SteadyStdPct) { Break(); return; }
+        // A block with a set-point move in it holds the move's transient: never steady.
+        if (std > _options.SteadyStdPct || _spMax - _spMin > _options.MinSpStepPct / 2) { Break(); return; }
         var agrees = _hasPrevious && _prevManual == _manual && Math.Abs(pv - _prevPv) <= _options.PvDriftPct
             && Math.Abs(op - _prevOp) <= _options.OpDriftPct && Math.Abs(sp - _prevSp) <= _options.MinSpStepPct / 2;
         if (!agrees)
@@ -117,11 +122,12 @@ public sealed class ProportionalBandAdviser : LoopDetector
         }
         else
         {
-            _level = new SteadyLevel(1, _prevPv, _prevSp, _prevOp, _manual, _prevStart, start).Extend(pv, sp, op, end);
+            // The first of the two agreeing blocks may still hold the tail of a transient: the level starts with the second.
+            _level = new SteadyLevel(1, pv, sp, op, _manual, start, end);
             if (_lastLevel is { } last) Pair(last, _level.Value);
         }
         _hasPrevious = true;
-        (_prevPv, _prevSp, _prevOp, _prevManual, _prevStart) = (pv, sp, op, _manual, start);
+        (_prevPv, _prevSp, _prevOp, _prevManual) = (pv, sp, op, _manual);
         _at = end;
         _dirty = true;
     }

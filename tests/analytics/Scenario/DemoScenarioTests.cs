@@ -96,4 +96,15 @@ public sealed class DemoScenarioTests
         Assert.Contains(FindingKinds.ExcessiveReversals, Kinds("PIC-103"));
         Assert.DoesNotContain(FindingKinds.Oscillation, Kinds("PIC-103"));
     }
+
+    [Fact]
+    public void Print_advice()
+    {
+        foreach (var id in new[] { "LIC-301", "PIC-201", "TIC-202", "FIC-101" })
+        {
+            var a = Run.Value[id].Monitor.Statistics().Advice;
+            if (a is null) { Console.WriteLine($"{id}: none"); continue; }
+            foreach (var r in a.Value.All()) { Console.WriteLine($"{id} {r.Headline}"); foreach (var l in r.Explanation) Console.WriteLine("   " + l); }
+        }
+    }
 }

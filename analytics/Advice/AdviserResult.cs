@@ -6,6 +6,12 @@ namespace LoopWatch.Analytics.Advice;
 /// </summary>
 public abstract record AdviserResult(DateTimeOffset? At, string? NotShownBecause)
 {
+    /// <summary>Which adviser: <c>dead-zone</c>, <c>offset-what-if</c> or <c>performance</c>.</summary>
+    public abstract string Adviser { get; }
+
+    /// <summary>A short title for pages.</summary>
+    public abstract string Title { get; }
+
     /// <summary>The caution that goes with every piece of advice.</summary>
     public string Caution => AdviceCaution.Text;
 

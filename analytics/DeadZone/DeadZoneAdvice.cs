@@ -29,6 +29,12 @@ public sealed record DeadZoneAdvice(
     double? WorstInflowDeadZone = null) : AdviserResult(At, NotShownBecause)
 {
     /// <inheritdoc />
+    public override string Adviser => "dead-zone";
+
+    /// <inheritdoc />
+    public override string Title => "Dead-zone sizing";
+
+    /// <inheritdoc />
     public override string Headline => Shown
         ? $"dead zone {Text(DeadZone)} {Unit} gives {Text(StartsPerHour)} starts/h; at least {Text(NarrowestDeadZone)} {Unit} keeps within {Text(MaxStartsPerHour)} starts/h"
         : $"dead-zone sizing not shown: {NotShownBecause}";

@@ -22,6 +22,12 @@ public sealed record PerformanceAdvice(
     double Index = 0) : AdviserResult(At, NotShownBecause)
 {
     /// <inheritdoc />
+    public override string Adviser => "performance";
+
+    /// <inheritdoc />
+    public override string Title => "Performance index (Harris)";
+
+    /// <inheritdoc />
     public override string Headline => Shown
         ? $"performance index {Text(Index)} (0 = minimum variance for the dead time, near 1 = far from it)"
         : $"performance index not shown: {NotShownBecause}";

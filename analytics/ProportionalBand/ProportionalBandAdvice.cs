@@ -31,6 +31,12 @@ public sealed record ProportionalBandAdvice(
     IReadOnlyList<BandRow>? Rows = null) : AdviserResult(At, NotShownBecause)
 {
     /// <inheritdoc />
+    public override string Adviser => "offset-what-if";
+
+    /// <inheritdoc />
+    public override string Title => "Offset what-if (proportional-only)";
+
+    /// <inheritdoc />
     public override string Headline => Shown
         ? $"offset {Text(OffsetPct)} % of span at PB {Text(PbPct ?? 0)} %; " +
           string.Join(", ", (Rows ?? []).Where(r => !r.Current).Select(r => $"PB {Text(r.PbPct)} % would leave {Text(r.OffsetPct)} %{(r.Oscillates ? " (oscillates)" : "")}")) +

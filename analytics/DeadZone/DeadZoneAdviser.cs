@@ -129,12 +129,5 @@ public sealed class DeadZoneAdviser : LoopDetector
         count++;
     }
 
-    private double Median(double[] ring, int count)
-    {
-        var n = Math.Min(count, ring.Length);
-        var s = _scratch.AsSpan(0, n);
-        ring.AsSpan(0, n).CopyTo(s);
-        s.Sort();
-        return n % 2 == 1 ? s[n / 2] : (s[n / 2 - 1] + s[n / 2]) / 2;
-    }
+    private double Median(double[] ring, int count) => Statistics.Median.Of(ring.AsSpan(0, Math.Min(count, ring.Length)), _scratch);
 }

@@ -79,19 +79,23 @@ public sealed class HarrisIndex
     {
         var p = _order;
         var n = y.Length;
-        // Normal equations X'X a = X'y with row t holding y_(t-1)..y_(t-p), t = p..n-1; only the lower triangle is summed.
+        // Normal equations X'X a = X'y with row t holding y_(t-1)..y_(t-p), t = p..n-1. Only the first column of X'X is
+        // summed over the window; each further entry is its upper-left neighbour shifted by one row, one product in and
+        // one out, so a fit costs O(n p) rather than O(n p^2).
         for (var i = 0; i < p; i++)
         {
-            double r = 0;
-            for (var t = p; t < n; t++) r += y[t] * y[t - 1 - i];
-            _rhs[i] = r;
-            for (var j = 0; j <= i; j++)
+            double r = 0, s = 0;
+            for (var t = p; t < n; t++)
             {
-                double s = 0;
-                for (var t = p; t < n; t++) s += y[t - 1 - i] * y[t - 1 - j];
-                _normal[i * p + j] = s;
+                r += y[t] * y[t - 1 - i];
+                s += y[t - 1 - i] * y[t - 1];
             }
+            _rhs[i] = r;
+            _normal[i * p] = s;
         }
+        for (var i = 0; i < p - 1; i++)
+            for (var j = 0; j <= i; j++)
+                _normal[(i + 1) * p + j + 1] = _normal[i * p + j] + y[p - 2 - i] * y[p - 2 - j] - y[n - 2 - i] * y[n - 2 - j];
         // Cholesky X'X = L L' in place (lower triangle), then L z = X'y and L' a = z.
         for (var j = 0; j < p; j++)
         {

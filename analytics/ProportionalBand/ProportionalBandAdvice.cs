@@ -28,7 +28,8 @@ public sealed record ProportionalBandAdvice(
     double? UltimatePeriodS = null,
     double? UltimateKc = null,
     double? UltimatePbPct = null,
-    IReadOnlyList<BandRow>? Rows = null) : AdviserResult(At, NotShownBecause)
+    IReadOnlyList<BandRow>? Rows = null,
+    IReadOnlyList<double>? PairGains = null) : AdviserResult(At, NotShownBecause)
 {
     /// <inheritdoc />
     public override string Adviser => "offset-what-if";
@@ -48,7 +49,7 @@ public sealed record ProportionalBandAdvice(
         ? [
             $"Process gain: {(PairInManual ? "in manual the output was stepped" : $"the set point moved {Text(PairSpChangePct)} % of span")} between two steady periods; " +
             $"the PV moved {Text(PairPvChangePct)} % of span and the output {Text(PairOpChangePct)} %, so Kp = {Text(PairPvChangePct)} / {Text(PairOpChangePct)} = {Text(Significant(PairPvChangePct / PairOpChangePct))}" +
-            (GainPairs > 1 ? $"; the median of the last {GainPairs} such pairs is Kp = {Text(ProcessGain)}." : "."),
+            (GainPairs > 1 ? $"; the median of the last {GainPairs} such pairs ({string.Join(", ", (PairGains ?? []).Select(Text))}) is Kp = {Text(ProcessGain)}." : "."),
             $"Now: PB {Text(PbPct ?? 0)} %, so Kc = 100 / PB = {Text(Kc ?? 0)}; over the current steady period the offset SP - PV is {Text(OffsetPct)} % of span.",
             $"Load effect (the offset with no proportional action) = offset × (1 + Kc Kp) = {Text(OffsetPct)} × (1 + {Text(Kc ?? 0)} × {Text(ProcessGain)}) = {Text(LoadEffectPct)} % of span; " +
             $"any band leaves offset = {Text(LoadEffectPct)} / (1 + Kc × {Text(ProcessGain)}) with Kc = 100 / PB (Seborg, Edgar and Mellichamp: offset = K_L M / (1 + Kc Kp)).",

@@ -153,14 +153,7 @@ public sealed class ProportionalBandAdviser : LoopDetector
         _pair = (from, to);
     }
 
-    private double Median()
-    {
-        var n = Math.Min(_gainCount, _gains.Length);
-        var s = _scratch.AsSpan(0, n);
-        _gains.AsSpan(0, n).CopyTo(s);
-        s.Sort();
-        return n % 2 == 1 ? s[n / 2] : (s[n / 2 - 1] + s[n / 2]) / 2;
-    }
+    private double Median() => Statistics.Median.Of(_gains.AsSpan(0, Math.Min(_gainCount, _gains.Length)), _scratch);
 
     private ProportionalBandAdvice? Work()
     {
@@ -175,7 +168,11 @@ public sealed class ProportionalBandAdviser : LoopDetector
         if (current is not { } now || now.Manual) return new ProportionalBandAdvice(at, "waiting for a steady period in auto");
         var kc = Significant(kcKnown);
         var pb = Significant(100 / kc);
-        var kp = Significant(Median());
+        // The median is taken of the gains as printed, so the page's figures give it by hand.
+        var pairs = Math.Min(_gainCount, _gains.Length);
+        var gains = new double[pairs];
+        for (var i = 0; i < pairs; i++) gains[i] = Significant(_gains[(_gainCount - pairs + i) % _gains.Length]);
+        var kp = Significant(Statistics.Median.Of(gains, _scratch));
         var offset = Significant(now.ErrorPct);
         var load = Significant(offset * (1 + kc * kp));
         double? ku = null, w = null;
@@ -196,6 +193,6 @@ public sealed class ProportionalBandAdviser : LoopDetector
         return new ProportionalBandAdvice(at, null, pb, kc, kp, Math.Min(_gainCount, _gains.Length),
             Significant(to.SpPct - from.SpPct), Significant(to.PvPct - from.PvPct), Significant(to.OpPct - from.OpPct), to.Manual,
             offset, load, tuning.DeadTimeSeconds, tuning.TimeConstantSeconds, w, w is { } ww ? Significant(2 * Math.PI / ww) : null,
-            ku, ku is { } kk ? Significant(100 / kk) : null, rows);
+            ku, ku is { } kk ? Significant(100 / kk) : null, rows, gains);
     }
 }

@@ -22,7 +22,7 @@ public sealed class ProportionalBandAdviser : LoopDetector
 
     private long _block = long.MinValue;
     private int _n;
-    private bool _invalid, _manual, _auto;
+    private bool _manual, _auto;
     private double _pv, _pv2, _sp, _op, _spMin, _spMax;
 
     private bool _hasPrevious;
@@ -59,16 +59,13 @@ public sealed class ProportionalBandAdviser : LoopDetector
             _offsetActive = board.Get(FindingKinds.SustainedOffset) is Offset.OffsetFinding { Cause: Offset.OffsetCauses.NoIntegralAction };
             _block = block;
             _n = 0;
-            _invalid = _manual = _auto = false;
+            _manual = _auto = false;
             _pv = _pv2 = _sp = _op = 0;
             _spMin = double.PositiveInfinity;
             _spMax = double.NegativeInfinity;
         }
-        if (!sample.PvGood || double.IsNaN(sample.Sp) || double.IsNaN(sample.Op))
-        {
-            _invalid = true;
-            return;
-        }
+        // Bad values are held out of the block (as out of every statistic); a block left with too few is not judged.
+        if (!sample.PvGood || double.IsNaN(sample.Sp) || double.IsNaN(sample.Op)) return;
         var pv = _spec.ToPct(sample.Pv);
         _n++;
         _pv += pv;
@@ -103,7 +100,7 @@ public sealed class ProportionalBandAdviser : LoopDetector
     private void CloseBlock(bool next)
     {
         var expected = _options.BlockSeconds / _spec.Limits.SampleSeconds;
-        if (!next || _invalid || (_manual && _auto) || _n < expected / 2) { Break(); return; }
+        if (!next || (_manual && _auto) || _n < expected / 2) { Break(); return; }
         double pv = _pv / _n, sp = _sp / _n, op = _op / _n;
         var std = Math.Sqrt(Math.Max(0, _pv2 / _n - pv * pv));
         var start = _block * _blockTicks;

@@ -2,6 +2,7 @@ using LoopWatch.Agent.Plant;
 using LoopWatch.Analytics.Configuration;
 using LoopWatch.Analytics.DeadZone;
 using LoopWatch.Analytics.OnOff;
+using LoopWatch.Analytics.Tests.OnOff;
 using LoopWatch.Analytics.Tests.Monitoring;
 
 namespace LoopWatch.Analytics.Tests.DeadZone;
@@ -16,14 +17,7 @@ public sealed class DeadZoneAdviserTests
         var cycles = new ShortCyclingDetector(spec);
         var adviser = new DeadZoneAdviser(spec, cycles);
         var rig = new LoopRig(spec, cycles, adviser);
-        var options = new LoopOptions { Id = "LS-310", Kind = "on-off", Pv = new SignalOptions { Tag = "u3/loop/pv", Min = 0, Max = 3 } };
-        var sump = new SumpModel(options, Area, depth: 3, stop, start, PumpRate, inflow, noiseSigma: 0.002, seed: 5);
-        // The model steps at 0.1 s; the agent samples it once a second, as the tags would arrive.
-        for (long i = 0; i < (long)(hours * 36_000); i++)
-        {
-            sump.Step(i * 0.1, 0.1);
-            if (i % 10 == 9) rig.Feed((i + 1) / 10, sump.Reading.Pv, double.NaN, sump.Reading.Op);
-        }
+        SumpFeed.Run(new SumpModel(SumpFeed.Options(), Area, depth: 3, stop, start, PumpRate, inflow, noiseSigma: 0.002, seed: 5), rig, hours);
         return (rig.Monitor.Statistics().Advice!.Value.DeadZone!, cycles);
     }
 

@@ -2,6 +2,8 @@ using System.Globalization;
 using System.Text.RegularExpressions;
 using LoopWatch.Agent.Ingest;
 using LoopWatch.Agent.Plant;
+using LoopWatch.Agent.Storage;
+using LoopWatch.Storage.Rows;
 using LoopWatch.Agent.Tests.Infrastructure;
 using LoopWatch.Analytics.Advice;
 using LoopWatch.Analytics.Sampling;
@@ -85,6 +87,15 @@ public sealed partial class AdvicePageTests
         // A loop without a dead time says why it has no index.
         var fic = await agent.LoopAsync("FIC-101");
         Assert.Contains("Tuning:DeadTimeSeconds", fic!.Value.GetProperty("stats").GetProperty("advice").GetProperty("performance").GetProperty("not_shown_because").GetString());
+
+        // The weekly summary lists a top offender of the week with the advice its loop has now, caution beside it.
+        var writer = agent.App.Services.GetRequiredService<AgentStorage>().Writer;
+        writer.Post(new HourlyStatsRow { LoopId = "LIC-301", HourMs = new DateTimeOffset(T0, TimeSpan.Zero).AddHours(-1).ToUnixTimeMilliseconds(), Samples = 3600, SecondsAnyFinding = 3600 });
+        await writer.FlushAsync();
+        await page.GotoAsync(agent.Http.BaseAddress + "weekly?week=2026-03-02");
+        var weekly = await page.Locator("#advice tr[data-loop=LIC-301]").InnerTextAsync();
+        Assert.Contains($"dead zone {Rounding.Text(d)} m", weekly);
+        Assert.Contains(AdviceCaution.Text, weekly);
     }
 
     [GeneratedRegex(@"dead zone now is D = (-?[0-9]+(?:\.[0-9]+)?)")]

@@ -27,7 +27,9 @@ public static class JsonReport
                 from = l.From,
                 to = l.To,
                 stats = l.Stats,
-                window_stats = l.WindowStats,
+                // The advice is the monitor's at the end of the data; listed once, beside rather than inside window_stats.
+                window_stats = l.WindowStats with { Advice = null },
+                advice = l.WindowStats.Advice,
                 findings = l.Findings.Select(f => (object)f).ToArray(),
                 alarms = result.AlarmsOf(l.Spec.Id),
             }).ToArray(),

@@ -28,7 +28,9 @@ public sealed class DemoPlant
             {
                 Kc = 2, TiSeconds = null, TauSeconds = 20, DeadTimeSeconds = 3, SetPointPct = 55,
                 NoiseSigmaPct = 0.03, NoiseFilterSeconds = 3, LoadSteps = [(900, -9)], Seed = seed + 10,
-            }, new TuningOptions { PbPct = 50 }),
+                // A set-point test (down 2 % of span and back) before the load change: it shows the process gain.
+                SetPointSteps = [(300, 53), (660, 55)],
+            }, new TuningOptions { PbPct = 50, DeadTimeSeconds = 3, TimeConstantSeconds = 20 }),
             new SumpModel(OnOff("LIC-301", "Effluent sump level", "Effluent", "level", 0, 3, "m", withSp: false), area: 3, depth: 3,
                 stopLevel: 1.0, startLevel: 1.4, pumpRate: 0.04, inflow: 0.02, inflowSwing: 0.004, noiseSigma: 0.003, seed: seed + 20),
             new HeaterModel(OnOff("TIC-401", "Hot-water tank heater", "Utilities", "temperature", 0, 100, "degC", withSp: true),
@@ -42,7 +44,7 @@ public sealed class DemoPlant
             {
                 Kc = 5.3, TiSeconds = 40, TauSeconds = 60, DeadTimeSeconds = 15, SetPointPct = 50,
                 InputNoiseSigmaPct = 2.5, InputNoiseFilterSeconds = 50, NoiseSigmaPct = 0.05, Seed = seed + 50,
-            }, new TuningOptions { Kc = 5.3, TiSeconds = 40 }),
+            }, new TuningOptions { Kc = 5.3, TiSeconds = 40, DeadTimeSeconds = 15 }),
             Pid("PIC-103", "Steam header pressure", "Boiler house", "pressure", 0, 16, "bar", false, new PidLoopSetup
             {
                 Kc = 3, TiSeconds = 10, TauSeconds = 10, DeadTimeSeconds = 1, SetPointPct = 62.5,

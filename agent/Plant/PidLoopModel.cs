@@ -19,6 +19,7 @@ public sealed class PidLoopModel : SimulatedLoop
     private readonly LoadSchedule? _loads;
     private readonly (double Start, double End)[] _manual;
     private readonly (double At, double LoadPct)[] _loadSteps;
+    private readonly (double At, double SetPointPct)[] _spSteps;
     private readonly double _min, _span;
     private double _truePct, _measuredPct, _spPct, _op, _position;
     private LoopMode _mode = LoopMode.Auto;
@@ -50,6 +51,7 @@ public sealed class PidLoopModel : SimulatedLoop
         if (setup.LoadAmplitudePct > 0) _loads = new LoadSchedule(setup.LoadAmplitudePct, setup.LoadMeanGapSeconds, setup.LoadMeanHoldSeconds, setup.Seed + 1);
         _manual = setup.ManualPeriods ?? [];
         _loadSteps = setup.LoadSteps ?? [];
+        _spSteps = setup.SetPointSteps ?? [];
     }
 
     /// <inheritdoc />
@@ -62,6 +64,7 @@ public sealed class PidLoopModel : SimulatedLoop
     public override void Step(double t, double dt)
     {
         var load = (_loads?.Step(dt) ?? 0) + StepLoad(t) + (_inputNoise?.Next() ?? 0);
+        foreach (var (at, pct) in _spSteps) if (t >= at) _spPct = pct;
         var manual = InManual(t);
         if (manual)
         {

@@ -26,6 +26,8 @@ public sealed record PidLoopSetup
     public double LoadMeanGapSeconds { get; init; } = 600;
     public double LoadMeanHoldSeconds { get; init; } = 300;
     public (double At, double LoadPct)[]? LoadSteps { get; init; }
+    /// <summary>Set-point changes: from each time (s) the set point is that % of span.</summary>
+    public (double At, double SetPointPct)[]? SetPointSteps { get; init; }
     public (double Start, double End)[]? ManualPeriods { get; init; }
     public int Seed { get; init; } = 1;
 }

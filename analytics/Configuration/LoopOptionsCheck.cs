@@ -110,8 +110,9 @@ public static class LoopOptionsCheck
         if (t.TiSeconds is { } ti && !(ti > 0 && double.IsFinite(ti))) fail("Tuning:TiSeconds", "must be a positive number");
         if (t.TdSeconds is { } td && !(td >= 0 && double.IsFinite(td))) fail("Tuning:TdSeconds", "must be zero or a positive number");
         if (t.DeadTimeSeconds is { } dt && !(dt > 0 && double.IsFinite(dt))) fail("Tuning:DeadTimeSeconds", "must be a positive number");
+        if (t.TimeConstantSeconds is { } tau && !(tau > 0 && double.IsFinite(tau))) fail("Tuning:TimeConstantSeconds", "must be a positive number");
         var gain = t.Kc ?? (t.PbPct is { } p && p > 0 ? 100.0 / p : null);
-        return new LoopTuning(gain, t.TiSeconds, t.TdSeconds, t.DeadTimeSeconds);
+        return new LoopTuning(gain, t.TiSeconds, t.TdSeconds, t.DeadTimeSeconds) { TimeConstantSeconds = t.TimeConstantSeconds };
     }
 
     private static void CheckPositive(double value, string key, Action<string, string> fail)

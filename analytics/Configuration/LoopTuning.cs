@@ -6,6 +6,9 @@ public sealed record LoopTuning(double? Kc, double? TiSeconds, double? TdSeconds
     /// <summary>No tuning known.</summary>
     public static LoopTuning None { get; } = new(null, null, null, null);
 
+    /// <summary>Process time constant in seconds (first order plus dead time), when known.</summary>
+    public double? TimeConstantSeconds { get; init; }
+
     /// <summary>Proportional band in %, 100 / Kc (trade definition).</summary>
     public double? PbPct => Kc is { } k && k != 0 ? 100.0 / k : null;
 }

@@ -11,5 +11,10 @@ public sealed class TuningOptions
 
     public double? TiSeconds { get; set; }
     public double? TdSeconds { get; set; }
+
+    /// <summary>Process dead time, seconds; enables the performance index and, with the time constant, the ultimate gain of the offset advice.</summary>
     public double? DeadTimeSeconds { get; set; }
+
+    /// <summary>Process time constant (first order plus dead time), seconds; with the dead time gives the gain at which the loop would oscillate.</summary>
+    public double? TimeConstantSeconds { get; set; }
 }

@@ -1,7 +1,10 @@
 using LoopWatch.Analytics.Configuration;
+using LoopWatch.Analytics.DeadZone;
 using LoopWatch.Analytics.OnOff;
 using LoopWatch.Analytics.Offset;
 using LoopWatch.Analytics.Oscillation;
+using LoopWatch.Analytics.Performance;
+using LoopWatch.Analytics.ProportionalBand;
 using LoopWatch.Analytics.Quality;
 using LoopWatch.Analytics.Reversals;
 
@@ -24,8 +27,16 @@ public static class DetectorSet
             list.Add(new OffsetDetector(spec));
             list.Add(new ReversalDetector(spec));
             list.Add(new SaturationDetector(spec));
+            // Advisers last: they read the findings of this sample and add figures, never findings.
+            if (spec.Tuning.TiSeconds is null) list.Add(new ProportionalBandAdviser(spec));
+            list.Add(new PerformanceAdviser(spec));
         }
-        else list.Add(new ShortCyclingDetector(spec));
+        else
+        {
+            var cycles = new ShortCyclingDetector(spec);
+            list.Add(cycles);
+            list.Add(new DeadZoneAdviser(spec, cycles));
+        }
         return list;
     }
 }

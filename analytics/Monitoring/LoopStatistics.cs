@@ -19,4 +19,7 @@ public readonly record struct LoopStatistics
     public double? StartsPerHour { get; init; }
     public double? DutyPct { get; init; }
     public double? CycleAmplitudePct { get; init; }
+
+    /// <summary>The advisers' figures (dead zone, offset what-if, performance index); null when no adviser applies.</summary>
+    public Advice.LoopAdvice? Advice { get; init; }
 }

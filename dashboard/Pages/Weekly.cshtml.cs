@@ -15,6 +15,9 @@ public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSch
     public DateTimeOffset Now { get; private set; }
     public bool IsComplete { get; private set; }
 
+    /// <summary>The week's top offenders with the advice their loops have now.</summary>
+    public IReadOnlyList<OffenderAdvice> Advice { get; private set; } = [];
+
     public async Task<IActionResult> OnGetAsync(string? week, CancellationToken ct)
     {
         if (!TryWeek(week, out var w)) return BadRequest("week must be a date yyyy-MM-dd (the Monday of an ISO week)");
@@ -28,6 +31,7 @@ public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSch
         }
         Summary = new WeekOverWeek(current, await SummaryAsync(w.Before(), ct));
         IsComplete = w.End <= Now;
+        Advice = OffenderAdvice.For(current, id => plant.Loop(id)?.Statistics.Advice);
         return Page();
     }
 

@@ -42,6 +42,16 @@ public sealed class SampleTests
         Assert.Contains("sustained-offset", kinds("PIC-201"));
         Assert.Contains("oscillation", kinds("TIC-202"));
         Assert.Contains("short-cycling", kinds("LIC-301")); // dead zone too narrow: about 30 starts an hour against 10
+        // Advice at the end of the data. LIC-301: rates Qin/A = (Qp - Qin)/A = 0.4 m/min, so 10 starts/h needs
+        // D = 6 min / (1/0.4 + 1/0.4) = 1.2 m (wet-well rule, V/Qin + V/(Qp - Qin); pump-station handbooks, from memory).
+        var dz = AnalyzeRun.Loop(report, "LIC-301").GetProperty("advice").GetProperty("dead_zone");
+        Assert.True(dz.GetProperty("shown").GetBoolean());
+        Assert.InRange(dz.GetProperty("narrowest_dead_zone").GetDouble(), 1.14, 1.26);
+        Assert.Contains("qualified people", dz.GetProperty("caution").GetString());
+        // PIC-201: Seborg, Edgar and Mellichamp's P-only offset Kp M / (1 + Kc Kp) = 9 / 3 = 3 % at PB 50 %; 9 / 5 = 1.8 % at PB 25 %.
+        var whatIf = AnalyzeRun.Loop(report, "PIC-201").GetProperty("advice").GetProperty("offset_what_if");
+        var quarter = whatIf.GetProperty("rows").EnumerateArray().Single(r => r.GetProperty("pb_pct").GetDouble() == 25);
+        Assert.InRange(quarter.GetProperty("offset_pct").GetDouble(), 1.7, 1.9);
         // FIC-104 is put in manual for 40 of the first 120 minutes (from 30 to 70 min).
         var auto = AnalyzeRun.Loop(report, "FIC-104").GetProperty("stats").GetProperty("time_in_auto_pct").GetDouble();
         Assert.InRange(auto, 100 - 40.0 / 120 * 100 - 0.1, 100 - 40.0 / 120 * 100 + 0.1);

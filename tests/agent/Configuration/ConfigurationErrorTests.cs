@@ -30,6 +30,8 @@ public sealed class ConfigurationErrorTests
     [InlineData("\"Min\": 0, \"Max\": 250", "\"Min\": 250, \"Max\": 250", "Loops:0 (FIC-101): Pv:Max")]
     [InlineData("\"Process\": \"flow\"", "\"Process\": \"viscosity\"", "Loops:0 (FIC-101): Process")]
     [InlineData("\"Op\": { \"Tag\": \"a/op\" }", "\"Op\": { \"Tag\": \"a/op\" }, \"Limits\": { \"OffsetPct\": -1 }", "Loops:0 (FIC-101): Limits:OffsetPct")]
+    [InlineData("\"Op\": { \"Tag\": \"a/op\" }", "\"Op\": { \"Tag\": \"a/op\" }, \"Tuning\": { \"DeadTimeSeconds\": 0 }", "Loops:0 (FIC-101): Tuning:DeadTimeSeconds")]
+    [InlineData("\"Op\": { \"Tag\": \"a/op\" }", "\"Op\": { \"Tag\": \"a/op\" }, \"Tuning\": { \"TimeConstantSeconds\": -5 }", "Loops:0 (FIC-101): Tuning:TimeConstantSeconds")]
     [InlineData("{ \"LoopWatch\": {", "{ \"LoopWatch\": { \"Dashboard\": { \"ShiftHours\": 7 },", "Dashboard:ShiftHours")]
     [InlineData("{ \"LoopWatch\": {", "{ \"LoopWatch\": { \"Dashboard\": { \"TimeZone\": \"Mars/Olympus\" },", "Dashboard:TimeZone")]
     [InlineData("{ \"LoopWatch\": {", "{ \"LoopWatch\": { \"Broker\": { \"Port\": 70000 },", "Broker:Port")]

@@ -16,14 +16,7 @@ public sealed class WetWellTests
         var spec = LoopRig.Define("on-off", "level", min: 0, max: 3);
         var detector = new ShortCyclingDetector(spec);
         var rig = new LoopRig(spec, detector);
-        var options = new LoopOptions { Id = "LS-310", Kind = "on-off", Pv = new SignalOptions { Tag = "u3/loop/pv", Min = 0, Max = 3 } };
-        var sump = new SumpModel(options, Area, depth: 3, Stop, Start, PumpRate, inflow);
-        // The model steps at 0.1 s; the agent samples it once a second, as the tags would arrive.
-        for (long i = 0; i < (long)(hours * 36_000); i++)
-        {
-            sump.Step(i * 0.1, 0.1);
-            if (i % 10 == 9) rig.Feed((i + 1) / 10, sump.Reading.Pv, double.NaN, sump.Reading.Op);
-        }
+        SumpFeed.Run(new SumpModel(SumpFeed.Options(), Area, depth: 3, Stop, Start, PumpRate, inflow), rig, hours);
         return (rig, detector);
     }
 
@@ -83,7 +76,7 @@ public sealed class WetWellTests
         var spec = LoopRig.Define("on-off", "level", min: 0, max: 3);
         var detector = new ShortCyclingDetector(spec);
         var rig = new LoopRig(spec, detector);
-        var options = new LoopOptions { Id = "LS-310", Kind = "on-off", Pv = new SignalOptions { Tag = "u3/loop/pv", Min = 0, Max = 3 } };
+        var options = SumpFeed.Options();
         var fast = new SumpModel(options, Area, depth: 3, Stop, Start, PumpRate, PumpRate / 2);
         var slow = new SumpModel(options, Area, depth: 3, Stop, Start, PumpRate, PumpRate * 0.05);
         // One hour at Qin = Qp/2 (22.5 starts an hour), then three at Qin = Qp/20 (3600 / (800 + 42) = 4.3 an hour; design rule above).

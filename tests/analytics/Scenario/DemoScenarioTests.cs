@@ -96,4 +96,60 @@ public sealed class DemoScenarioTests
         Assert.Contains(FindingKinds.ExcessiveReversals, Kinds("PIC-103"));
         Assert.DoesNotContain(FindingKinds.Oscillation, Kinds("PIC-103"));
     }
+
+    [Fact]
+    public void The_sump_advice_redoes_by_hand_and_matches_the_wet_well()
+    {
+        var a = Run.Value["LIC-301"].Monitor.Statistics().Advice!.Value.DeadZone!;
+        Assert.True(a.Shown, a.NotShownBecause);
+        // LIC-301: 3 m2 well, Qin 0.02 and Qp 0.04 m3/s: the level rises at Qin/A = 0.4 m/min and falls at (Qp - Qin)/A = 0.4 m/min (mass balance).
+        Assert.InRange(a.RateOffPerMin, 0.4 * 0.95, 0.4 * 1.05);
+        Assert.InRange(-a.RateOnPerMin, 0.4 * 0.95, 0.4 * 1.05);
+        // The page's working, redone from its own printed figures.
+        Assert.Equal(Math.Abs(a.PvAtStart - a.PvAtStop), a.DeadZone, 1e-3);
+        var cycle = a.DeadZone / a.RateOffPerMin + a.DeadZone / -a.RateOnPerMin;
+        Assert.Equal(cycle, a.CycleMin, 1e-3 * cycle);
+        Assert.Equal(60 / a.CycleMin, a.StartsPerHour, 1e-3 * a.StartsPerHour);
+        Assert.Equal(60 / a.MaxStartsPerHour, a.TargetCycleMin, 1e-3);
+        var narrowest = a.TargetCycleMin / (1 / a.RateOffPerMin + 1 / -a.RateOnPerMin);
+        Assert.Equal(narrowest, a.NarrowestDeadZone, 1e-3 * narrowest);
+        Assert.Equal(a.NarrowestDeadZone / 3 * 100, a.SwingPctOfSpan, 0.01);
+        // Wet-well rule: V/Qin + V/(Qp - Qin) with V = 3 m2 x 0.4 m gives 120 s (30 starts/h); the prediction agrees with the measured cycles within 3 %.
+        Assert.InRange(a.StartsPerHour, 0.97 * a.MeasuredStartsPerHour!.Value, 1.03 * a.MeasuredStartsPerHour.Value);
+        // At most 10 starts/h needs a 6 min cycle: D = 6 / (1/0.4 + 1/0.4) = 1.2 m.
+        Assert.InRange(a.NarrowestDeadZone, 1.2 * 0.95, 1.2 * 1.05);
+    }
+
+    [Fact]
+    public void The_proportional_only_advice_redoes_by_hand_and_matches_the_textbook()
+    {
+        var a = Run.Value["PIC-201"].Monitor.Statistics().Advice!.Value.OffsetWhatIf!;
+        Assert.True(a.Shown, a.NotShownBecause);
+        // PIC-201 is simulated with Kp = 1 and PB 50 %: Seborg, Edgar and Mellichamp give offset = Kp M / (1 + Kc Kp) = 9 / 3 = 3 % of span.
+        Assert.InRange(a.ProcessGain, 0.97, 1.03);
+        Assert.Equal(50, a.PbPct);
+        Assert.Equal(3.0, a.OffsetPct, 0.15);
+        Assert.Equal(a.OffsetPct * (1 + a.Kc!.Value * a.ProcessGain), a.LoadEffectPct, 1e-3 * a.LoadEffectPct);
+        foreach (var row in a.Rows!)
+            Assert.Equal(a.LoadEffectPct / (1 + 100 / row.PbPct * a.ProcessGain), row.OffsetPct, 2e-3 * row.OffsetPct);
+        // First order plus dead time, tau 20 s, theta 3 s: the phase crossover w solves 3w + atan(20w) = pi (Bode stability criterion).
+        var w = a.UltimateOmega!.Value;
+        Assert.Equal(Math.PI, 3 * w + Math.Atan(20 * w), 1e-3);
+        Assert.Equal(Math.Sqrt(1 + 400 * w * w) / a.ProcessGain, a.UltimateKc!.Value, 1e-3 * a.UltimateKc.Value);
+        Assert.Contains(a.Rows, r => r.Oscillates);
+    }
+
+    [Fact]
+    public void The_performance_index_of_the_demo_redoes_by_hand()
+    {
+        var a = Run.Value["PIC-201"].Monitor.Statistics().Advice!.Value.Performance!;
+        Assert.True(a.Shown, a.NotShownBecause);
+        Assert.Equal(3, a.DelaySamples); // DeadTimeSeconds 3 at 1 s a sample
+        // Harris (1989): sigma_mv^2 = sigma_a^2 (psi_0^2 + psi_1^2 + psi_2^2), index = 1 - sigma_mv^2 / sigma_y^2.
+        Assert.Equal(a.InnovationStdPct * Math.Sqrt(a.Impulse!.Sum(p => p * p)), a.MinimumStdPct, 1e-3 * a.MinimumStdPct);
+        Assert.Equal(1 - Math.Pow(a.MinimumStdPct / a.ErrorStdPct, 2), a.Index, 1e-3);
+        Assert.InRange(a.Index, 0, 1);
+        // The loop tuned near its ultimate gain is far from minimum variance.
+        Assert.True(Run.Value["TIC-202"].Monitor.Statistics().Advice!.Value.Performance!.Index > 0.5);
+    }
 }

@@ -45,7 +45,7 @@ public static class AgentHost
         services.AddSingleton(setup.Time);
         services.AddSingleton(opts);
         services.AddSingleton(opts.Broker);
-        services.AddSingleton(new PlantClock(setup.Time, setup.Demo?.Speed ?? 1));
+        services.AddSingleton(new PlantClock(setup.Time, setup.Demo?.Speed ?? 1, opts.Broker.MaxLeadSeconds));
         services.AddSingleton(opts.AlarmSystem);
         services.AddSingleton(new StorageOptions
         {

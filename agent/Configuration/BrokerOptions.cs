@@ -17,4 +17,7 @@ public sealed class BrokerOptions
 
     /// <summary>Embedded broker: messages queued per client before QoS 0 messages are dropped (MQTTnet's default is far lower).</summary>
     public int MaxPendingMessagesPerClient { get; set; } = 1_000_000;
+
+    /// <summary>A payload timestamp more than this many seconds ahead of its receive time is rejected; default 300.</summary>
+    public double MaxLeadSeconds { get; set; } = Ingest.PlantClock.DefaultMaxLeadSeconds;
 }

@@ -18,6 +18,7 @@ public sealed class PlantState : IPlantView
     private readonly TimeProvider _time;
     private readonly ILogger _log;
     private long _received, _accepted, _rejected, _unknown;
+    private readonly long[] _rejectedBy = new long[Enum.GetValues<RejectReason>().Length];
     private long _nextRejectLogTicks;
     private long _suppressedRejectLogs;
 
@@ -73,10 +74,12 @@ public sealed class PlantState : IPlantView
             return RejectReason.None;
         }
         var reason = PayloadDecoder.Decode(payload, route.ValueKind, out var value);
+        if (reason == RejectReason.None && value.Ticks != 0 && Clock.TooFarAhead(value.Ticks)) reason = RejectReason.FutureTimestamp;
         if (reason != RejectReason.None)
         {
             Interlocked.Increment(ref route.Rejected);
             Interlocked.Increment(ref _rejected);
+            Interlocked.Increment(ref _rejectedBy[(int)reason]);
             LogReject(topic, reason);
             return reason;
         }
@@ -84,6 +87,9 @@ public sealed class PlantState : IPlantView
         Take(route, ticks, value.Value, value.Quality);
         return RejectReason.None;
     }
+
+    /// <summary>Payloads rejected for <paramref name="reason"/> since start.</summary>
+    public long RejectedBy(RejectReason reason) => Interlocked.Read(ref _rejectedBy[(int)reason]);
 
     /// <summary>Takes one decoded value for a known route (the path offline analysis uses).</summary>
     public void Take(TagRoute route, long ticks, double value, SampleQuality quality)
@@ -122,7 +128,15 @@ public sealed class PlantState : IPlantView
         long late = 0;
         foreach (var c in _cells) late += c.Read(m => m.Snapshot.LateValues);
         return new IngestCounters(Interlocked.Read(ref _received), Interlocked.Read(ref _accepted), Interlocked.Read(ref _rejected),
-            Interlocked.Read(ref _unknown), late, BrokerConnected, Math.Max(0, Interlocked.Read(ref Connections) - 1));
+            Interlocked.Read(ref _unknown), late, BrokerConnected, Math.Max(0, Interlocked.Read(ref Connections) - 1), RejectedByReason());
+    }
+
+    private Dictionary<string, long> RejectedByReason()
+    {
+        var byReason = new Dictionary<string, long>();
+        foreach (var reason in Enum.GetValues<RejectReason>())
+            if (RejectedBy(reason) is > 0 and var n) byReason[System.Text.Json.JsonNamingPolicy.SnakeCaseLower.ConvertName(reason.ToString())] = n;
+        return byReason;
     }
 
     private static LoopView View(LoopCell cell) => cell.Read(m =>

@@ -60,7 +60,9 @@ public sealed class LoopMonitor
         {
             if (_slot != long.MinValue && !_slotEmitted && _seen != 0) Emit();
             var gap = ticks - _lastUpdateTicks;
-            if (_lastUpdateTicks != 0 && gap > _staleTicks) Resume(ticks);
+            // Stale may also have been raised on the plant clock while values were held up (a broker outage, a
+            // gateway clock set back): the first newer value ends it, whatever its gap in event time.
+            if (_lastUpdateTicks != 0 && (gap > _staleTicks || IsStale)) Resume(ticks);
             else if (_slot != long.MinValue && _slotEmitted) FillGap(slot);
             _slot = slot;
             _seen = 0;

@@ -54,7 +54,8 @@ public sealed class HostileNamesTests
                 j => j.GetProperty("alarms").EnumerateArray().Any(a => a.GetProperty("id").GetString() == alarmId), what: "stale alarm on the hostile loop");
             using var ack = new HttpRequestMessage(HttpMethod.Post, $"/api/alarms/{Uri.EscapeDataString(alarmId)}/ack") { Content = JsonContent.Create(new { comment = Comment }) };
             ack.Headers.Add("X-Test-Operator", User);
-            Assert.Equal(HttpStatusCode.OK, (await agent.Http.SendAsync(ack)).StatusCode);
+            var acked = await agent.Http.SendAsync(ack);
+            Assert.True(acked.StatusCode == HttpStatusCode.OK, await acked.Content.ReadAsStringAsync());
             var all = await agent.Http.GetFromJsonAsync<JsonElement>("/api/alarms?state=all&since=2000-01-01T00:00:00Z");
             Assert.Contains(all.GetProperty("transitions").EnumerateArray(), t => t.GetProperty("user").GetString() == User && t.GetProperty("comment").GetString() == Comment);
         }

@@ -56,6 +56,7 @@ public static class AgentHost
         // Others (user store, reports) resolve the open database and reader; AgentStorage owns and closes them.
         services.AddSingleton(sp => sp.GetRequiredService<AgentStorage>().Database);
         services.AddSingleton(sp => sp.GetRequiredService<AgentStorage>().Reader);
+        services.AddSingleton<IStorageHealth, WriterHealth>();
         services.AddSingleton<AlarmJournal>();
         services.AddSingleton(sp => new AlarmEngine(setup.Specs, [sp.GetRequiredService<AlarmJournal>()]));
         services.AddSingleton(sp =>

@@ -1,5 +1,6 @@
 namespace LoopWatch.Agent.Tests.Configuration;
 
+[Collection(Infrastructure.EnvironmentCollection.Name)]
 public sealed class ConfigurationErrorTests
 {
     private static async Task<(int Code, string Err)> Check(string json)

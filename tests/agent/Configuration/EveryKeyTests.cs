@@ -9,6 +9,7 @@ namespace LoopWatch.Agent.Tests.Configuration;
 /// Every key of the agent's configuration (agent/Configuration and analytics/Configuration) given an invalid value:
 /// <c>loopwatch check</c> exits 2 and names the key. Keys are found by reflection, so a new key without a case fails.
 /// </summary>
+[Collection(Infrastructure.EnvironmentCollection.Name)]
 public sealed class EveryKeyTests
 {
     private const string Good = """

@@ -160,12 +160,5 @@ public sealed class EveryKeyTests
         return root.ToJsonString();
     }
 
-    private static async Task<(int Code, string Err)> Check(string json)
-    {
-        var file = Path.Combine(Directory.CreateTempSubdirectory("lw-cfg-").FullName, "loops.json");
-        await File.WriteAllTextAsync(file, json);
-        var err = new StringWriter();
-        var code = await Cli.RunAsync(["check", "--config", file], new StringWriter(), err);
-        return (code, err.ToString());
-    }
+    private static Task<(int Code, string Err)> Check(string json) => ConfigurationErrorTests.Check(json);
 }

@@ -52,6 +52,14 @@ public sealed class Mosquitto : IAsyncDisposable
         await WaitReadyAsync(readyPort == 0 ? Port : readyPort);
     }
 
+    /// <summary>Waits until the broker has written its persistence file after <paramref name="sinceUtc"/> (it saves once a second).</summary>
+    public async Task WaitSavedAsync(DateTime sinceUtc)
+    {
+        var file = Path.Combine(_dir, "mosquitto.db");
+        await Eventually.Until(() => Task.FromResult(File.Exists(file) ? File.GetLastWriteTimeUtc(file) : DateTime.MinValue), t => t > sinceUtc,
+            TimeSpan.FromSeconds(10), "mosquitto persistence written");
+    }
+
     /// <summary>Stops the broker with SIGTERM, so it writes its persistence file, and waits for it to exit.</summary>
     public async Task StopAsync()
     {

@@ -29,13 +29,16 @@ public sealed class BrokerFaultTests
         loop.Alarms = new AlarmOptions { OnDelaySeconds = 0, OffDelaySeconds = 0 };
         await using var agent = await RunningAgent.StartAsync([loop], embedded: false, brokerPort: broker.Port, logging: b => b.AddProvider(logs));
         await Eventually.Until(async () => Ingest(await agent.HealthAsync()).GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+        var subscribed = DateTime.UtcNow;
 
         // Event time a little behind the wall clock, one value per tag and second.
         var start = DateTimeOffset.UtcNow.AddSeconds(-3 * SecondsPerPhase - 30);
         var published = await PublishAsync(publisherPort, start, 0);
         await UntilAccepted(agent, published, "the first phase taken");
 
-        // Mid-stream the broker dies: the agent notices, and with no data its loop goes stale.
+        // Mid-stream the broker dies: the agent notices, and with no data its loop goes stale. Mosquitto keeps sessions
+        // across a SIGKILL only as far as its last save (once a second here), so the kill waits for one after the subscription.
+        await broker.WaitSavedAsync(subscribed);
         broker.Kill();
         await Eventually.Until(async () => Ingest(await agent.HealthAsync()).GetProperty("broker_connected").GetBoolean(), c => !c, what: "disconnect noticed");
         await Eventually.Until(() => agent.LoopAsync(Id), l => Findings(l!.Value).Contains("stale"), TimeSpan.FromSeconds(20), "gap marked stale");

@@ -45,7 +45,7 @@ public static class AgentHost
         services.AddSingleton(setup.Time);
         services.AddSingleton(opts);
         services.AddSingleton(opts.Broker);
-        services.AddSingleton(new PlantClock(setup.Time, setup.Demo?.Speed ?? 1));
+        services.AddSingleton(new PlantClock(setup.Time, setup.Demo?.Speed ?? 1, opts.Broker.MaxLeadSeconds));
         services.AddSingleton(opts.AlarmSystem);
         services.AddSingleton(new StorageOptions
         {
@@ -56,6 +56,7 @@ public static class AgentHost
         // Others (user store, reports) resolve the open database and reader; AgentStorage owns and closes them.
         services.AddSingleton(sp => sp.GetRequiredService<AgentStorage>().Database);
         services.AddSingleton(sp => sp.GetRequiredService<AgentStorage>().Reader);
+        services.AddSingleton<IStorageHealth, WriterHealth>();
         services.AddSingleton<AlarmJournal>();
         services.AddSingleton(sp => new AlarmEngine(setup.Specs, [sp.GetRequiredService<AlarmJournal>()]));
         services.AddSingleton(sp =>

@@ -1,4 +1,6 @@
 using System.Net;
+using System.Security.Cryptography;
+using System.Text;
 using LoopWatch.Agent.Configuration;
 using Microsoft.Extensions.Hosting;
 using Microsoft.Extensions.Logging;
@@ -6,7 +8,10 @@ using MQTTnet.Server;
 
 namespace LoopWatch.Agent.Broker;
 
-/// <summary>An MQTT broker inside the agent (MQTTnet.Server), bound to loopback, for the demo and small installations.</summary>
+/// <summary>
+/// An MQTT broker inside the agent (MQTTnet.Server) for the demo and small installations, bound to loopback unless
+/// <c>Broker:ListenAddress</c> says otherwise; with <c>Broker:Username</c> set every client must give those credentials.
+/// </summary>
 public sealed class EmbeddedBroker(BrokerOptions options, ILogger<EmbeddedBroker> log) : IHostedService, IAsyncDisposable
 {
     private MqttServer? _server;
@@ -14,17 +19,28 @@ public sealed class EmbeddedBroker(BrokerOptions options, ILogger<EmbeddedBroker
     /// <summary>Starts listening; throws when the port is taken.</summary>
     public async Task StartAsync(CancellationToken cancellationToken)
     {
+        var address = IPAddress.Parse(options.ListenAddress);
         var serverOptions = new MqttServerOptionsBuilder()
             .WithDefaultEndpoint()
-            .WithDefaultEndpointBoundIPAddress(IPAddress.Loopback)
+            .WithDefaultEndpointBoundIPAddress(address)
             .WithDefaultEndpointBoundIPV6Address(IPAddress.None)
             .WithDefaultEndpointPort(options.Port)
             // MQTTnet drops QoS 0 messages silently past this queue length; the default loses messages in bursts.
             .WithMaxPendingMessagesPerClient(options.MaxPendingMessagesPerClient)
             .Build();
         _server = new MqttServerFactory().CreateMqttServer(serverOptions);
+        if (options.Username is { Length: > 0 } user) _server.ValidatingConnectionAsync += e => Validate(e, user, options.Password ?? "");
         await _server.StartAsync();
-        AgentLog.BrokerStarted(log, IPAddress.Loopback.ToString(), options.Port);
+        AgentLog.BrokerStarted(log, address.ToString(), options.Port);
+    }
+
+    private static Task Validate(ValidatingConnectionEventArgs e, string user, string password)
+    {
+        // Fixed-time comparison, so the answer's timing tells nothing about how much of the password was right.
+        var ok = CryptographicOperations.FixedTimeEquals(Encoding.UTF8.GetBytes(e.UserName ?? ""), Encoding.UTF8.GetBytes(user))
+            & CryptographicOperations.FixedTimeEquals(Encoding.UTF8.GetBytes(e.Password ?? ""), Encoding.UTF8.GetBytes(password));
+        if (!ok) e.ReasonCode = MQTTnet.Protocol.MqttConnectReasonCode.BadUserNameOrPassword;
+        return Task.CompletedTask;
     }
 
     /// <summary>Stops the broker.</summary>

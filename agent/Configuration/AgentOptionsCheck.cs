@@ -13,6 +13,10 @@ public static class AgentOptionsCheck
         if (b.Port is < 1 or > 65535) errors.Add($"Broker:Port: {b.Port} is not a TCP port (1-65535)");
         if (string.IsNullOrWhiteSpace(b.ClientId)) errors.Add("Broker:ClientId: is missing");
         if (b.MaxPendingMessagesPerClient < 1) errors.Add("Broker:MaxPendingMessagesPerClient: must be at least 1");
+        if (!(b.MaxLeadSeconds >= 0 && double.IsFinite(b.MaxLeadSeconds))) errors.Add($"Broker:MaxLeadSeconds: {b.MaxLeadSeconds} must be zero or more seconds");
+        if (!System.Net.IPAddress.TryParse(b.ListenAddress, out var listen)) errors.Add($"Broker:ListenAddress: '{b.ListenAddress}' is not an IP address");
+        else if (b.Embedded && !System.Net.IPAddress.IsLoopback(listen) && (string.IsNullOrEmpty(b.Username) || string.IsNullOrEmpty(b.Password)))
+            errors.Add($"Broker:ListenAddress: the embedded broker on {listen}, off loopback, needs Broker:Username and Broker:Password");
         if (b.Username is null && b.Password is not null) errors.Add("Broker:Username: is missing while Broker:Password is set");
         foreach (var url in (options.Dashboard.Urls ?? "").Split(';', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
         {

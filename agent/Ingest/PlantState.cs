@@ -98,6 +98,7 @@ public sealed class PlantState : IPlantView
             return RejectReason.None;
         }
         var reason = PayloadDecoder.Decode(payload, route.ValueKind, out var value);
+        if (reason == RejectReason.None && value.Ticks != 0 && Clock.TooFarAhead(value.Ticks)) reason = RejectReason.FutureTimestamp;
         if (reason != RejectReason.None)
         {
             Reject(route, topic, reason);
@@ -157,7 +158,15 @@ public sealed class PlantState : IPlantView
         var late = Interlocked.Read(ref _lateOfRetired);
         foreach (var c in _cells) late += c.Read(m => m.Snapshot.LateValues);
         return new IngestCounters(Interlocked.Read(ref _received), Interlocked.Read(ref _accepted), Interlocked.Read(ref _rejected),
-            Interlocked.Read(ref _unknown), late, BrokerConnected, Math.Max(0, Interlocked.Read(ref Connections) - 1));
+            Interlocked.Read(ref _unknown), late, BrokerConnected, Math.Max(0, Interlocked.Read(ref Connections) - 1), RejectedByReason());
+    }
+
+    private Dictionary<string, long> RejectedByReason()
+    {
+        var byReason = new Dictionary<string, long>();
+        foreach (var reason in Enum.GetValues<RejectReason>())
+            if (RejectedFor(reason) is > 0 and var n) byReason[System.Text.Json.JsonNamingPolicy.SnakeCaseLower.ConvertName(reason.ToString())] = n;
+        return byReason;
     }
 
     /// <summary>Payloads rejected for <paramref name="reason"/> since start.</summary>

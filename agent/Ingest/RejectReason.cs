@@ -11,4 +11,7 @@ public enum RejectReason : byte
     BadJson,
     BadTimestamp,
     BadQuality,
+
+    /// <summary>The timestamp lies more than <c>Broker:MaxLeadSeconds</c> ahead of the receive time.</summary>
+    FutureTimestamp,
 }

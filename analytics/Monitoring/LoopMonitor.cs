@@ -61,7 +61,9 @@ public sealed class LoopMonitor
         {
             if (_slot != long.MinValue && !_slotEmitted && _seen != 0) Emit();
             var gap = ticks - _lastUpdateTicks;
-            if (_lastUpdateTicks != 0 && gap > _staleTicks && _lost == 0) Resume(ticks);
+            // Stale may also have been raised on the plant clock while values were held up (a broker outage, a
+            // gateway clock set back): the first newer value ends it, whatever its gap in event time. A lost source ends only by its own signals.
+            if (_lastUpdateTicks != 0 && (gap > _staleTicks || IsStale) && _lost == 0) Resume(ticks);
             else if (_slot != long.MinValue && _slotEmitted) FillGap(slot);
             _slot = slot;
             _seen = 0;

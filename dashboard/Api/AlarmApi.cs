@@ -26,12 +26,12 @@ public static class AlarmApi
             return Results.Json(new { alarms = list, transitions = journal }, ApiJson.Options);
         });
         app.MapPost("/api/alarms/{id}/ack", (string id, ActionBody? body, HttpContext http, IAlarmView alarms, IActionGuard guard) =>
-            Act(http, guard, "acknowledge", body, user => alarms.Acknowledge(id, user, body?.Comment)));
+            Act(http, guard, "acknowledge", body, user => alarms.Acknowledge(RouteId(id), user, body?.Comment)));
         app.MapPost("/api/alarms/{id}/shelve", (string id, ActionBody? body, HttpContext http, IAlarmView alarms, IActionGuard guard) =>
         {
             if (body?.Minutes is not { } minutes || !(minutes > 0 && minutes <= 7 * 24 * 60))
                 return Task.FromResult(Results.BadRequest(new { error = "minutes must be above 0 and at most 10080 (a week)" }));
-            return Act(http, guard, "shelve", body, user => alarms.Shelve(id, user, body.Comment, TimeSpan.FromMinutes(minutes)));
+            return Act(http, guard, "shelve", body, user => alarms.Shelve(RouteId(id), user, body.Comment, TimeSpan.FromMinutes(minutes)));
         });
         app.MapGet("/api/alarm-health", async (double? hours, IAlarmView alarms, CancellationToken ct) =>
         {
@@ -39,6 +39,9 @@ public static class AlarmApi
             return Results.Json(await alarms.HealthAsync(window, ct), ApiJson.Options);
         });
     }
+
+    // The router decodes every escape in a path segment but %2F, which would split the path: a loop id may hold a '/'.
+    private static string RouteId(string id) => id.Replace("%2F", "/", StringComparison.OrdinalIgnoreCase);
 
     private static async Task<IResult> Act(HttpContext http, IActionGuard guard, string action, ActionBody? body, Func<string, AlarmActionView> act)
     {

@@ -14,10 +14,13 @@ public static class LoopApi
             Results.Json(plant.Loops().Select(LoopJson.From).ToArray(), ApiJson.Options));
         app.MapGet("/api/loops/{id}", (string id, IPlantView plant) =>
             plant.Loop(id) is { } v ? Results.Json(LoopJson.From(v), ApiJson.Options) : Results.NotFound());
-        app.MapGet("/healthz", (IPlantView plant) =>
+        app.MapGet("/healthz", (IPlantView plant, IServiceProvider services) =>
         {
             var c = plant.Counters();
-            return Results.Json(new { status = "ok", plant_time = plant.Now, ingest = c }, ApiJson.Options);
+            // A storage fault leaves the agent analysing (200) but says so: status "degraded" and the writer's state.
+            var storage = (services.GetService(typeof(IStorageHealth)) as IStorageHealth)?.Current();
+            var status = storage?.Fault is null ? "ok" : "degraded";
+            return Results.Json(new { status, plant_time = plant.Now, ingest = c, storage }, ApiJson.Options);
         });
     }
 }

@@ -1,6 +1,6 @@
 namespace LoopWatch.Dashboard.Model;
 
-/// <summary>Counters of the ingest path since start.</summary>
+/// <summary>Counters of the ingest path since start; the last splits the rejected payloads by why (snake_case reason).</summary>
 public readonly record struct IngestCounters(
     long Received,
     long Accepted,
@@ -8,4 +8,5 @@ public readonly record struct IngestCounters(
     long UnknownTopic,
     long Late,
     bool BrokerConnected,
-    long Reconnects);
+    long Reconnects,
+    IReadOnlyDictionary<string, long>? RejectedByReason = null);

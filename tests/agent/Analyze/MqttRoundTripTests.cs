@@ -20,9 +20,11 @@ public sealed class MqttRoundTripTests
         var loops = demo.Loops.Where(l => l.Options.Id is "PIC-201" or "FIC-102").ToList();
         var rec = PlantRecording.Of(loops, seconds: 1800);
 
-        // A fake clock: the agent's ticker never fires, so only event time speaks, as in the file run.
+        // A fake clock: the agent's ticker never fires, so only event time speaks, as in the file run. The clock stands
+        // at the recording's start, so the recorded timestamps may lead it by the whole half hour.
         var port = FreePort.Next();
-        await using var agent = await RunningAgent.StartAsync(rec.Loops, embedded: true, brokerPort: port, time: new FakeTimeProvider(PlantRecording.Start));
+        await using var agent = await RunningAgent.StartAsync(rec.Loops, embedded: true, brokerPort: port, time: new FakeTimeProvider(PlantRecording.Start),
+            tweak: o => o.Broker.MaxLeadSeconds = 3600);
         using var client = new MqttClientFactory().CreateMqttClient();
         await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", port).WithClientId("test-gateway").Build());
         await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");

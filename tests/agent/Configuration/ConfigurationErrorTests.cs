@@ -1,8 +1,10 @@
 namespace LoopWatch.Agent.Tests.Configuration;
 
+[Collection(Infrastructure.EnvironmentCollection.Name)]
 public sealed class ConfigurationErrorTests
 {
-    private static async Task<(int Code, string Err)> Check(string json)
+    /// <summary>Runs <c>loopwatch check</c> on <paramref name="json"/> written to a temp file.</summary>
+    internal static async Task<(int Code, string Err)> Check(string json)
     {
         var file = Path.Combine(Directory.CreateTempSubdirectory("lw-cfg-").FullName, "loops.json");
         await File.WriteAllTextAsync(file, json);

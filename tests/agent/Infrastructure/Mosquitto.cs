@@ -9,7 +9,7 @@ namespace LoopWatch.Agent.Tests.Infrastructure;
 /// </summary>
 public sealed class Mosquitto : IAsyncDisposable
 {
-    private readonly Process _process;
+    private Process _process;
     private readonly string _dir;
 
     private Mosquitto(Process process, string dir, int port)
@@ -32,12 +32,52 @@ public sealed class Mosquitto : IAsyncDisposable
     {
         var p = port ?? FreePort.Next();
         var dir = Directory.CreateTempSubdirectory("lw-mosquitto-").FullName;
+        // Started as root, mosquitto drops to its own user, which must be able to write the persistence file here.
+        if (!OperatingSystem.IsWindows()) File.SetUnixFileMode(dir, (UnixFileMode)0b111_111_111);
+        var broker = new Mosquitto(await LaunchAsync(dir, p, extraConfig, listen: true), dir, p);
+        await broker.WaitReadyAsync(p);
+        return broker;
+    }
+
+    /// <summary>
+    /// Starts the broker again after <see cref="Kill"/> or <see cref="StopAsync"/>, on the same port and persistence folder
+    /// (so persistent sessions and their queued messages come back). Without <paramref name="listen"/> the main port
+    /// stays closed and only the listeners in <paramref name="extraConfig"/> are open.
+    /// </summary>
+    public async Task RestartAsync(string extraConfig = "", bool listen = true, int readyPort = 0)
+    {
+        if (!_process.HasExited) throw new InvalidOperationException("mosquitto is still running");
+        _process.Dispose();
+        _process = await LaunchAsync(_dir, Port, extraConfig, listen);
+        await WaitReadyAsync(readyPort == 0 ? Port : readyPort);
+    }
+
+    /// <summary>Waits until the broker has written its persistence file after <paramref name="sinceUtc"/> (it saves once a second).</summary>
+    public async Task WaitSavedAsync(DateTime sinceUtc)
+    {
+        var file = Path.Combine(_dir, "mosquitto.db");
+        await Eventually.Until(() => Task.FromResult(File.Exists(file) ? File.GetLastWriteTimeUtc(file) : DateTime.MinValue), t => t > sinceUtc,
+            TimeSpan.FromSeconds(10), "mosquitto persistence written");
+    }
+
+    /// <summary>Stops the broker with SIGTERM, so it writes its persistence file, and waits for it to exit.</summary>
+    public async Task StopAsync()
+    {
+        using (var kill = Process.Start(new ProcessStartInfo("kill", ["-TERM", _process.Id.ToString()]) { UseShellExecute = false })!)
+            await kill.WaitForExitAsync();
+        await _process.WaitForExitAsync();
+    }
+
+    private static async Task<Process> LaunchAsync(string dir, int port, string extraConfig, bool listen)
+    {
         var conf = Path.Combine(dir, "mosquitto.conf");
+        // autosave_interval 1: persistence written every second, so sessions survive even a SIGKILL.
         await File.WriteAllTextAsync(conf, $"""
-            listener {p} 127.0.0.1
+            {(listen ? $"listener {port} 127.0.0.1" : "")}
             allow_anonymous true
             persistence true
             persistence_location {dir}/
+            autosave_interval 1
             max_queued_messages 1000000
             {extraConfig}
             """);
@@ -45,9 +85,7 @@ public sealed class Mosquitto : IAsyncDisposable
         var process = Process.Start(psi) ?? throw new InvalidOperationException("mosquitto did not start");
         process.BeginErrorReadLine();
         process.BeginOutputReadLine();
-        var broker = new Mosquitto(process, dir, p);
-        await broker.WaitReadyAsync();
-        return broker;
+        return process;
     }
 
     /// <summary>Runs a mosquitto client tool (mosquitto_pub) against this broker and waits for it.</summary>
@@ -75,7 +113,7 @@ public sealed class Mosquitto : IAsyncDisposable
         _process.WaitForExit();
     }
 
-    private async Task WaitReadyAsync()
+    private async Task WaitReadyAsync(int port)
     {
         var clock = System.Diagnostics.Stopwatch.StartNew();
         while (clock.Elapsed < TimeSpan.FromSeconds(10))
@@ -84,7 +122,7 @@ public sealed class Mosquitto : IAsyncDisposable
             try
             {
                 using var c = new TcpClient();
-                await c.ConnectAsync("127.0.0.1", Port);
+                await c.ConnectAsync("127.0.0.1", port);
                 return;
             }
             catch (SocketException) { await Task.Delay(50); }

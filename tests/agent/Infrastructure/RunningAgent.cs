@@ -24,7 +24,8 @@ public sealed class RunningAgent : IAsyncDisposable
     public string DataDir { get; }
 
     public static async Task<RunningAgent> StartAsync(IEnumerable<LoopOptions> loops, bool embedded, int brokerPort, TimeProvider? time = null, string? dataDir = null,
-        Demo.DemoRun? demo = null, Action<AgentOptions>? tweak = null, Action<Microsoft.Extensions.DependencyInjection.IServiceCollection>? services = null)
+        Demo.DemoRun? demo = null, Action<AgentOptions>? tweak = null, Action<Microsoft.Extensions.DependencyInjection.IServiceCollection>? services = null,
+        Action<Microsoft.Extensions.Logging.ILoggingBuilder>? logging = null)
     {
         var dir = dataDir ?? Directory.CreateTempSubdirectory("lw-agent-").FullName;
         var options = new AgentOptions
@@ -38,7 +39,7 @@ public sealed class RunningAgent : IAsyncDisposable
         var errors = new List<string>();
         var specs = AgentOptionsCheck.Check(options, errors);
         if (errors.Count > 0) throw new InvalidOperationException(string.Join("; ", errors));
-        var app = AgentHost.Build(new AgentSetup(options, specs, demo, time ?? TimeProvider.System), configure: services);
+        var app = AgentHost.Build(new AgentSetup(options, specs, demo, time ?? TimeProvider.System), logging, services);
         await app.StartAsync();
         var http = new HttpClient { BaseAddress = new Uri(AgentHost.DashboardAddresses(app)[0]) };
         return new RunningAgent(app, options, http, dir);

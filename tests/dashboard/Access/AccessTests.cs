@@ -89,6 +89,65 @@ public sealed partial class AccessTests
     }
 
     [Fact]
+    public async Task Shelve_through_the_api_is_refused_without_login_without_token_and_for_a_viewer()
+    {
+        await using var agent = await AgentWithUsers(("ria", Roles.Operator), ("vic", Roles.Viewer));
+        static Task<HttpResponseMessage> Shelve(HttpClient http, string? token)
+        {
+            var request = new HttpRequestMessage(HttpMethod.Post, "/api/alarms/FIC-950:stale/shelve") { Content = JsonContent.Create(new { comment = "work permit 12", minutes = 30 }) };
+            if (token is not null) request.Headers.Add(DashboardSetup.TokenHeader, token);
+            return http.SendAsync(request);
+        }
+        using (var anonymous = Browserless(agent))
+            Assert.Equal(HttpStatusCode.Forbidden, (await Shelve(anonymous, await ApiToken(anonymous))).StatusCode);
+        using (var viewer = Browserless(agent))
+        {
+            await SignIn(viewer, "vic", "correct horse 9");
+            Assert.Equal(HttpStatusCode.Forbidden, (await Shelve(viewer, await ApiToken(viewer))).StatusCode);
+        }
+        using var op = Browserless(agent);
+        await SignIn(op, "ria", "correct horse 9");
+        Assert.Equal(HttpStatusCode.Forbidden, (await Shelve(op, null)).StatusCode);
+        Assert.Equal(HttpStatusCode.Forbidden, (await Shelve(op, "forged-token")).StatusCode);
+        Assert.NotEqual(HttpStatusCode.Forbidden, (await Shelve(op, await ApiToken(op))).StatusCode); // reaches the engine
+    }
+
+    [Fact]
+    public async Task Adding_a_user_is_refused_without_login_without_token_and_below_admin()
+    {
+        await using var agent = await AgentWithUsers(("ria", Roles.Operator), ("ada", Roles.Admin));
+        var store = agent.App.Services.GetRequiredService<UserStore>();
+        Dictionary<string, string> Form(string? token)
+        {
+            var f = new Dictionary<string, string> { ["name"] = "mallory", ["role"] = Roles.Admin, ["password"] = "long enough pw 1" };
+            if (token is not null) f["__RequestVerificationToken"] = token;
+            return f;
+        }
+        using (var anonymous = Browserless(agent))
+        {
+            var token = TokenField().Match(await anonymous.GetStringAsync("/login")).Groups[1].Value;
+            var r = await anonymous.PostAsync("/users?handler=Add", new FormUrlEncodedContent(Form(token)));
+            Assert.Equal(HttpStatusCode.Redirect, r.StatusCode);
+            Assert.Contains("/login", r.Headers.Location!.ToString());
+        }
+        using (var op = Browserless(agent))
+        {
+            await SignIn(op, "ria", "correct horse 9");
+            var token = TokenField().Match(await op.GetStringAsync("/login")).Groups[1].Value;
+            // A page answers a signed-in user without the role by sending the browser to the sign-in form (access denied).
+            var r = await op.PostAsync("/users?handler=Add", new FormUrlEncodedContent(Form(token)));
+            Assert.Equal(HttpStatusCode.Redirect, r.StatusCode);
+            Assert.Contains("/login", r.Headers.Location!.ToString());
+        }
+        using (var admin = Browserless(agent))
+        {
+            await SignIn(admin, "ada", "correct horse 9");
+            Assert.Equal(HttpStatusCode.BadRequest, (await admin.PostAsync("/users?handler=Add", new FormUrlEncodedContent(Form(null)))).StatusCode);
+        }
+        Assert.Null(await store.FindAsync("mallory")); // none of the refused requests added the user
+    }
+
+    [Fact]
     public async Task Every_answer_carries_the_security_headers()
     {
         await using var agent = await AgentWithUsers();

@@ -41,4 +41,19 @@ public sealed class DataGapTests
         Assert.Equal(0, detector.Output.ReversalsPerHour);
         Assert.InRange(detector.Output.WindowSeconds, 0.5, 1.5);
     }
+
+    [Fact]
+    public void Stale_raised_on_the_clock_while_values_were_held_up_ends_with_the_first_newer_value()
+    {
+        // A broker outage: the plant clock runs on, the loop goes stale, then the queued values arrive one second apart
+        // in event time, so no gap in the data itself is longer than StaleSeconds (30 s default).
+        var rig = new LoopRig(LoopRig.Define("pid", "flow"));
+        for (var s = 0; s < 60; s++) rig.Feed(s, 50, 50, 40);
+        rig.Monitor.Advance(LoopRig.At(59 + 45));
+        Assert.True(rig.Monitor.IsStale);
+        rig.Feed(60, 50, 50, 40);
+        Assert.False(rig.Monitor.IsStale);
+        var ended = Assert.Single(rig.Ended(Analytics.Findings.FindingKinds.Stale));
+        Assert.Equal(new DateTimeOffset(LoopRig.At(60), TimeSpan.Zero), ended.End);
+    }
 }

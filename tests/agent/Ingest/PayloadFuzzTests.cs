@@ -39,7 +39,7 @@ public sealed class PayloadFuzzTests
         var counters = run.Plant.Counters();
         Assert.Equal(counters.Received, counters.Accepted + counters.Rejected);
         Assert.Equal(run.Payloads, counters.Received);
-        Assert.Equal(counters.Rejected, Enum.GetValues<RejectReason>().Sum(run.Plant.RejectedBy));
+        Assert.Equal(counters.Rejected, Enum.GetValues<RejectReason>().Sum(run.Plant.RejectedFor));
 
         // The healthy loop saw exactly what it saw without the garbage: the same samples, statistics and findings (none).
         var healthy = run.Plant.Cell("FIC-601")!;

@@ -14,7 +14,7 @@ public sealed class LoopAlarms
 {
     private static readonly JsonSerializerOptions FigureJson = new() { PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower };
 
-    private readonly object _gate = new();
+    private readonly Lock _gate = new();
     private readonly AlarmPoint[] _points;
     private readonly IAlarmSink _sink;
     private readonly long _onDelay, _offDelay;

@@ -8,7 +8,7 @@ namespace LoopWatch.Agent.Ingest;
 /// <summary>One loop's live state: its monitor and trend, behind a lock so the dashboard can read while ingest writes.</summary>
 public sealed class LoopCell
 {
-    private readonly object _gate = new();
+    private readonly Lock _gate = new();
     private readonly TrendBuffer _trend = new(TimeSpan.FromSeconds(5));
 
     /// <summary>A cell for <paramref name="spec"/>; finding changes go to <paramref name="sink"/>, <paramref name="hooks"/> add detectors.</summary>
@@ -46,6 +46,12 @@ public sealed class LoopCell
     public T Read<T>(Func<LoopMonitor, T> read)
     {
         lock (_gate) return read(Monitor);
+    }
+
+    /// <summary>Reads the monitor consistently with <paramref name="state"/> passed in, so a static lambda allocates nothing.</summary>
+    public T Read<TState, T>(TState state, Func<LoopMonitor, TState, T> read)
+    {
+        lock (_gate) return read(Monitor, state);
     }
 
     /// <summary>The trend since <paramref name="fromTicks"/>.</summary>

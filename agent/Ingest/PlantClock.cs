@@ -6,7 +6,7 @@ namespace LoopWatch.Agent.Ingest;
 /// </summary>
 public sealed class PlantClock(TimeProvider time, double speed = 1)
 {
-    private readonly object _gate = new();
+    private readonly Lock _gate = new();
     private long _eventTicks;
     private long _wallTicksAtEvent;
 

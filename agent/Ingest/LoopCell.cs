@@ -5,15 +5,23 @@ using LoopWatch.Analytics.Sampling;
 
 namespace LoopWatch.Agent.Ingest;
 
-/// <summary>One loop's live state: its monitor and trend, behind a lock so the dashboard can read while ingest writes.</summary>
+/// <summary>
+/// One loop's live state: its monitor and trend, behind a lock so the dashboard can read while ingest writes. A cell
+/// that is not shared (offline analysis, one thread for everything) skips the lock on its per-value paths.
+/// </summary>
 public sealed class LoopCell
 {
     private readonly Lock _gate = new();
+    private readonly bool _shared;
     private readonly TrendBuffer _trend = new(TimeSpan.FromSeconds(5));
 
-    /// <summary>A cell for <paramref name="spec"/>; finding changes go to <paramref name="sink"/>, <paramref name="hooks"/> add detectors.</summary>
-    public LoopCell(LoopSpec spec, Action<FindingChange>? sink, LoopHooks? hooks = null)
+    /// <summary>
+    /// A cell for <paramref name="spec"/>; finding changes go to <paramref name="sink"/>, <paramref name="hooks"/> add detectors;
+    /// <paramref name="shared"/> false when a single thread feeds and reads it.
+    /// </summary>
+    public LoopCell(LoopSpec spec, Action<FindingChange>? sink, LoopHooks? hooks = null, bool shared = true)
     {
+        _shared = shared;
         var detectors = new List<LoopDetector>(DetectorSet.For(spec)) { new TrendRecorder(_trend) };
         // The hooks read statistics through the monitor, which exists only after the list is built.
         if (hooks is not null) detectors.AddRange(hooks(spec, () => Monitor!.Statistics()));
@@ -33,12 +41,14 @@ public sealed class LoopCell
     /// <summary>Takes one tag value.</summary>
     public void Update(Signal signal, long ticks, double value, SampleQuality quality)
     {
+        if (!_shared) { Monitor.Update(signal, ticks, value, quality); return; }
         lock (_gate) Monitor.Update(signal, ticks, value, quality);
     }
 
     /// <summary>Moves the loop's clock on (stale detection).</summary>
     public void Advance(long nowTicks)
     {
+        if (!_shared) { Monitor.Advance(nowTicks); return; }
         lock (_gate) Monitor.Advance(nowTicks);
     }
 
@@ -51,6 +61,7 @@ public sealed class LoopCell
     /// <summary>Reads the monitor consistently with <paramref name="state"/> passed in, so a static lambda allocates nothing.</summary>
     public T Read<TState, T>(TState state, Func<LoopMonitor, TState, T> read)
     {
+        if (!_shared) return read(Monitor, state);
         lock (_gate) return read(Monitor, state);
     }
 

@@ -17,18 +17,23 @@ public sealed class PlantState : IPlantView
     private readonly Dictionary<string, TagRoute> _routes;
     private readonly TimeProvider _time;
     private readonly ILogger _log;
+    private readonly bool _shared;
     private long _received, _accepted, _rejected, _unknown;
     private long _nextRejectLogTicks;
     private long _suppressedRejectLogs;
 
-    /// <summary>Builds the cells and routes; finding changes go to <paramref name="findings"/>, <paramref name="hooks"/> add per-loop detectors.</summary>
+    /// <summary>
+    /// Builds the cells and routes; finding changes go to <paramref name="findings"/>, <paramref name="hooks"/> add per-loop
+    /// detectors; <paramref name="shared"/> false when one thread feeds and reads everything (offline analysis), which skips the per-value locks.
+    /// </summary>
     public PlantState(IReadOnlyList<LoopSpec> specs, PlantClock clock, TimeProvider time, ILogger<PlantState> log,
-        Action<FindingChange>? findings = null, LoopHooks? hooks = null)
+        Action<FindingChange>? findings = null, LoopHooks? hooks = null, bool shared = true)
     {
         Clock = clock;
         _time = time;
         _log = log;
-        _cells = specs.Select(s => new LoopCell(s, findings, hooks)).ToArray();
+        _shared = shared;
+        _cells = specs.Select(s => new LoopCell(s, findings, hooks, shared)).ToArray();
         _byId = _cells.ToDictionary(c => c.Spec.Id, StringComparer.Ordinal);
         _routes = new Dictionary<string, TagRoute>(StringComparer.Ordinal);
         foreach (var cell in _cells)
@@ -88,8 +93,16 @@ public sealed class PlantState : IPlantView
     /// <summary>Takes one decoded value for a known route (the path offline analysis uses).</summary>
     public void Take(TagRoute route, long ticks, double value, SampleQuality quality)
     {
-        Interlocked.Increment(ref route.Accepted);
-        Interlocked.Increment(ref _accepted);
+        if (_shared)
+        {
+            Interlocked.Increment(ref route.Accepted);
+            Interlocked.Increment(ref _accepted);
+        }
+        else
+        {
+            route.Accepted++;
+            _accepted++;
+        }
         Clock.Observe(ticks);
         route.Cell.Update(route.Signal, ticks, value, quality);
     }

@@ -26,6 +26,7 @@ public sealed class LoopCell
         // The hooks read statistics through the monitor, which exists only after the list is built.
         if (hooks is not null) detectors.AddRange(hooks(spec, () => Monitor!.Statistics()));
         Monitor = new LoopMonitor(spec, sink, detectors);
+        Statistics = Monitor.Statistics;
         Reversals = detectors.OfType<Analytics.Reversals.ReversalDetector>().FirstOrDefault();
     }
 
@@ -34,6 +35,9 @@ public sealed class LoopCell
 
     /// <summary>The analytics of the loop; touch only under <see cref="Read{T}"/> or through the cell's methods.</summary>
     internal LoopMonitor Monitor { get; }
+
+    /// <summary>The monitor's statistics as one delegate made once; call only under <see cref="Read{T}"/>.</summary>
+    internal Func<LoopStatistics> Statistics { get; }
 
     /// <summary>The loop's definition.</summary>
     public LoopSpec Spec => Monitor.Spec;

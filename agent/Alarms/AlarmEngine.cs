@@ -17,12 +17,15 @@ public sealed class AlarmEngine : IAlarmSink
     private readonly object _recentGate = new();
     private long _count;
 
-    /// <summary>Alarms for <paramref name="specs"/>; the newest <paramref name="recentCapacity"/> transitions are kept in memory.</summary>
-    public AlarmEngine(IEnumerable<LoopSpec> specs, IEnumerable<IAlarmSink>? sinks = null, int recentCapacity = 10_000)
+    /// <summary>
+    /// Alarms for <paramref name="specs"/>; the newest <paramref name="recentCapacity"/> transitions are kept in memory;
+    /// <paramref name="shared"/> false when one thread does everything (offline analysis).
+    /// </summary>
+    public AlarmEngine(IEnumerable<LoopSpec> specs, IEnumerable<IAlarmSink>? sinks = null, int recentCapacity = 10_000, bool shared = true)
     {
         _sinks = sinks?.ToArray() ?? [];
         _recent = new AlarmTransition[Math.Max(1, recentCapacity)];
-        _loops = specs.ToDictionary(s => s.Id, s => new LoopAlarms(s, this), StringComparer.Ordinal);
+        _loops = specs.ToDictionary(s => s.Id, s => new LoopAlarms(s, this, shared), StringComparer.Ordinal);
     }
 
     /// <summary>Transitions since start.</summary>

@@ -14,7 +14,8 @@ public sealed class LoopAlarms
 {
     private static readonly JsonSerializerOptions FigureJson = new() { PropertyNamingPolicy = JsonNamingPolicy.SnakeCaseLower };
 
-    private readonly object _gate = new();
+    private readonly Lock _gate = new();
+    private readonly bool _shared;
     private readonly AlarmPoint[] _points;
     private readonly IAlarmSink _sink;
     private readonly long _onDelay, _offDelay;
@@ -22,10 +23,14 @@ public sealed class LoopAlarms
     private long _now;
     private bool _retired;
 
-    /// <summary>The alarms of <paramref name="spec"/>; every transition goes to <paramref name="sink"/>.</summary>
-    public LoopAlarms(LoopSpec spec, IAlarmSink sink)
+    /// <summary>
+    /// The alarms of <paramref name="spec"/>; every transition goes to <paramref name="sink"/>; <paramref name="shared"/>
+    /// false when one thread evaluates and reads them (offline analysis), which skips the lock on evaluation.
+    /// </summary>
+    public LoopAlarms(LoopSpec spec, IAlarmSink sink, bool shared = true)
     {
         Spec = spec;
+        _shared = shared;
         _sink = sink;
         _onDelay = (long)(spec.Alarms.OnDelaySeconds * TimeSpan.TicksPerSecond);
         _offDelay = (long)(spec.Alarms.OffDelaySeconds * TimeSpan.TicksPerSecond);
@@ -48,30 +53,33 @@ public sealed class LoopAlarms
     /// </summary>
     public void Evaluate(long ticks, LoopMode mode, FindingBoard board, Func<LoopStatistics>? statistics = null, double pv = double.NaN)
     {
-        lock (_gate)
+        if (!_shared) { EvaluateAll(ticks, mode, board, statistics, pv); return; }
+        lock (_gate) EvaluateAll(ticks, mode, board, statistics, pv);
+    }
+
+    private void EvaluateAll(long ticks, LoopMode mode, FindingBoard board, Func<LoopStatistics>? statistics, double pv)
+    {
+        if (_retired) return;
+        ticks = Advance(ticks);
+        var stale = board.IsActive(FindingKinds.Stale);
+        var outside = !InWindow(ticks);
+        foreach (var p in _points)
         {
-            if (_retired) return;
-            ticks = Advance(ticks);
-            var stale = board.IsActive(FindingKinds.Stale);
-            var outside = !InWindow(ticks);
-            foreach (var p in _points)
+            if (p.State == AlarmState.Shelved && ticks >= p.ShelvedUntilTicks)
+                Apply(p, AlarmTrigger.Unshelve, ticks, null, "shelf expired");
+            // The stale alarm reports the data path, so only the operating window holds it back.
+            var suppressed = outside || (p.Kind != FindingKinds.Stale && (mode == LoopMode.Manual || stale));
+            if (suppressed)
             {
-                if (p.State == AlarmState.Shelved && ticks >= p.ShelvedUntilTicks)
-                    Apply(p, AlarmTrigger.Unshelve, ticks, null, "shelf expired");
-                // The stale alarm reports the data path, so only the operating window holds it back.
-                var suppressed = outside || (p.Kind != FindingKinds.Stale && (mode == LoopMode.Manual || stale));
-                if (suppressed)
-                {
-                    if (p.State is AlarmState.Normal or AlarmState.Unacknowledged or AlarmState.Acknowledged or AlarmState.ReturnedUnacknowledged)
-                        Apply(p, AlarmTrigger.Suppress, ticks, null, null);
-                    continue;
-                }
-                if (p.State == AlarmState.SuppressedByDesign) Apply(p, AlarmTrigger.Unsuppress, ticks, null, null);
-                if (p.State is AlarmState.Shelved or AlarmState.OutOfService) continue;
-                var finding = board.Get(p.Kind);
-                var raw = finding is not null || (p.ConditionActive && AlarmDeadband.Holds(p.Kind, Spec, statistics, pv));
-                Debounce(p, raw, finding, ticks);
+                if (p.State is AlarmState.Normal or AlarmState.Unacknowledged or AlarmState.Acknowledged or AlarmState.ReturnedUnacknowledged)
+                    Apply(p, AlarmTrigger.Suppress, ticks, null, null);
+                continue;
             }
+            if (p.State == AlarmState.SuppressedByDesign) Apply(p, AlarmTrigger.Unsuppress, ticks, null, null);
+            if (p.State is AlarmState.Shelved or AlarmState.OutOfService) continue;
+            var finding = board.Get(p.Kind);
+            var raw = finding is not null || (p.ConditionActive && AlarmDeadband.Holds(p.Kind, Spec, statistics, pv));
+            Debounce(p, raw, finding, ticks);
         }
     }
 

@@ -212,8 +212,8 @@ public sealed class HistorianReader : IDisposable
 
     private RejectReason Decode(ReadOnlySpan<char> cell, TagValueKind kind, out double value)
     {
-        value = 0;
-        // Same value rules as live payloads: transcode the cell and hand it to the payload decoder.
+        // A plain decimal is read from the chars directly; anything else gets the live payload rules, transcoded to UTF-8.
+        if (PlainNumber.TryParse(cell, out value)) return RejectReason.None;
         if (!Encoding.UTF8.TryGetBytes(cell, _cell, out var n)) return RejectReason.TooLarge;
         var reason = PayloadDecoder.Decode(_cell.AsSpan(0, n), kind, out var decoded);
         value = decoded.Value;

@@ -30,13 +30,14 @@ public sealed class OfflineAnalysis(IReadOnlyList<LoopSpec> specs, int trendPoin
         var collector = new FindingCollector();
         var accumulators = new Dictionary<string, SpanAccumulator>(StringComparer.Ordinal);
         var alarms = new AlarmRecord();
-        var engine = new AlarmEngine(specs, [alarms]);
+        // One thread feeds and reads everything here, so the cells and alarms skip the locks the live agent needs.
+        var engine = new AlarmEngine(specs, [alarms], shared: false);
         var plant = new PlantState(specs, new PlantClock(time), time, NullLogger<PlantState>.Instance, collector.Take, (spec, statistics) =>
         {
             var a = new SpanAccumulator(spec, trendPoints);
             accumulators[spec.Id] = a;
             return [new AlarmFeed(engine.Loop(spec.Id)!, statistics), a];
-        });
+        }, shared: false);
         var ticker = new AlarmTicker(plant, engine, time);
         var rejects = new RowRejects();
         var routes = new Dictionary<string, TagRoute>(plant.Routes, StringComparer.Ordinal);

@@ -9,7 +9,7 @@ public sealed class PlantClock(TimeProvider time, double speed = 1, double maxLe
     /// <summary>Default of <c>Broker:MaxLeadSeconds</c>: how far a payload's timestamp may lie ahead of its receive time.</summary>
     public const double DefaultMaxLeadSeconds = 300;
 
-    private readonly object _gate = new();
+    private readonly Lock _gate = new();
     private readonly long _originWallTicks = time.GetUtcNow().UtcTicks;
     private readonly long _maxLeadTicks = (long)(maxLeadSeconds * TimeSpan.TicksPerSecond);
     private long _eventTicks;

@@ -23,21 +23,26 @@ public sealed class PlantState : IPlantView
     private long _lateOfRetired;
     private readonly TimeProvider _time;
     private readonly ILogger _log;
+    private readonly bool _shared;
     private long _received, _accepted, _rejected, _unknown;
     private readonly long[] _rejectedBy = new long[Enum.GetValues<RejectReason>().Length];
     private long _nextRejectLogTicks;
     private long _suppressedRejectLogs;
 
-    /// <summary>Builds the cells and routes; finding changes go to <paramref name="findings"/>, <paramref name="hooks"/> add per-loop detectors.</summary>
+    /// <summary>
+    /// Builds the cells and routes; finding changes go to <paramref name="findings"/>, <paramref name="hooks"/> add per-loop
+    /// detectors; <paramref name="shared"/> false when one thread feeds and reads everything (offline analysis), which skips the per-value locks.
+    /// </summary>
     public PlantState(IReadOnlyList<LoopSpec> specs, PlantClock clock, TimeProvider time, ILogger<PlantState> log,
-        Action<FindingChange>? findings = null, LoopHooks? hooks = null)
+        Action<FindingChange>? findings = null, LoopHooks? hooks = null, bool shared = true)
     {
         Clock = clock;
         _time = time;
         _log = log;
         _findings = findings;
         _hooks = hooks;
-        _cells = specs.Select(s => new LoopCell(s, findings, hooks)).ToArray();
+        _shared = shared;
+        _cells = specs.Select(s => new LoopCell(s, findings, hooks, shared)).ToArray();
         _byId = _cells.ToDictionary(c => c.Spec.Id, StringComparer.Ordinal);
         _routes = RoutesOf(_cells, null);
     }
@@ -54,7 +59,7 @@ public sealed class PlantState : IPlantView
         lock (_reconfigureGate)
         {
             var old = _byId;
-            var cells = specs.Select(s => change.Kept.Contains(s.Id) ? old[s.Id] : new LoopCell(s, _findings, _hooks)).ToArray();
+            var cells = specs.Select(s => change.Kept.Contains(s.Id) ? old[s.Id] : new LoopCell(s, _findings, _hooks, _shared)).ToArray();
             var routes = RoutesOf(cells, _routes);
             foreach (var id in change.Removed.Concat(change.Changed)) Interlocked.Add(ref _lateOfRetired, old[id].Read(m => m.Snapshot.LateValues));
             var oldTopics = _routes.Keys;
@@ -124,8 +129,16 @@ public sealed class PlantState : IPlantView
     /// <summary>Takes one decoded value for a known route (the path offline analysis uses).</summary>
     public void Take(TagRoute route, long ticks, double value, SampleQuality quality)
     {
-        Interlocked.Increment(ref route.Accepted);
-        Interlocked.Increment(ref _accepted);
+        if (_shared)
+        {
+            Interlocked.Increment(ref route.Accepted);
+            Interlocked.Increment(ref _accepted);
+        }
+        else
+        {
+            route.Accepted++;
+            _accepted++;
+        }
         Clock.Observe(ticks);
         route.Cell.Update(route.Signal, ticks, value, quality);
     }

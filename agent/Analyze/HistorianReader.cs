@@ -38,7 +38,8 @@ public sealed class HistorianReader : IDisposable
         _rejects = rejects;
         _routes = routes.GetAlternateLookup<ReadOnlySpan<char>>();
         _file = new FileStream(path, FileMode.Open, FileAccess.Read, FileShare.Read, 1 << 16, FileOptions.SequentialScan);
-        Length = _file.Length;
+        // A pipe (`<(zcat ...)`, a FIFO) has no length: progress then shows bytes read without a total.
+        Length = _file.CanSeek ? _file.Length : 0;
         Stream stream = path.EndsWith(".gz", StringComparison.OrdinalIgnoreCase) ? new GZipStream(_file, CompressionMode.Decompress) : _file;
         _text = new StreamReader(stream, Encoding.UTF8, detectEncodingFromByteOrderMarks: true, bufferSize: 1 << 16);
         try
@@ -80,7 +81,7 @@ public sealed class HistorianReader : IDisposable
     /// <summary>True when the file had not even a header.</summary>
     public bool Empty { get; }
 
-    /// <summary>Size of the file on disk.</summary>
+    /// <summary>Size of the file on disk; 0 for a pipe.</summary>
     public long Length { get; }
 
     /// <summary>Bytes of the file read so far (compressed bytes for .gz).</summary>

@@ -111,6 +111,23 @@ public sealed class MalformedFileTests : IDisposable
     }
 
     [Fact]
+    public async Task A_named_pipe_is_read_like_a_file()
+    {
+        // A shell's `<(zcat export.csv.gz)` hands the program a pipe that cannot seek: common practice, no source.
+        var file = Write("plain.csv", Lines());
+        var fifo = _run.PathOf("pipe.csv");
+        using (var mk = System.Diagnostics.Process.Start("mkfifo", [fifo])) mk.WaitForExit();
+        Assert.True(System.IO.File.Exists(fifo), "mkfifo made no pipe");
+        var writer = Task.Run(() => System.IO.File.WriteAllText(fifo, System.IO.File.ReadAllText(file)));
+        var piped = await Analyze(fifo);
+        await writer;
+        var plain = await Analyze(file);
+        Assert.Equal(0, piped.Exit);
+        Assert.Equal(AnalyzeRun.Loop(plain.Report, "FIC-1").GetProperty("samples").GetInt64(), AnalyzeRun.Loop(piped.Report, "FIC-1").GetProperty("samples").GetInt64());
+        Assert.Equal(AnalyzeRun.Loop(plain.Report, "FIC-1").GetProperty("stats").GetRawText(), AnalyzeRun.Loop(piped.Report, "FIC-1").GetProperty("stats").GetRawText());
+    }
+
+    [Fact]
     public async Task Unknown_tags_are_counted_and_listed()
     {
         var lines = Lines();

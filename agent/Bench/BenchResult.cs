@@ -19,7 +19,8 @@ public sealed record BenchResult(
     double CpuCores,
     double RssMb,
     double BytesPerLoop,
-    double CpuMicrosPerUpdate)
+    double CpuMicrosPerUpdate,
+    double? AllocatedBytesPerUpdate = null)
 {
     /// <summary>The final line: one JSON object with the keys the issue fixes, in that order.</summary>
     public string JsonLine()
@@ -59,6 +60,7 @@ public sealed record BenchResult(
         o.WriteLine($"  {"p50 / p99 publish->processed",-30} {F(P50LatencyMs, "0.00")} / {F(P99LatencyMs, "0.00")} ms");
         o.WriteLine($"  {"CPU (cores, whole process)",-30} {F(CpuCores, "0.000")}");
         o.WriteLine($"  {"CPU per update (us, process)",-30} {F(CpuMicrosPerUpdate, "0.000")}");
+        o.WriteLine($"  {"allocated per update (B, process)",-30} {F(AllocatedBytesPerUpdate, "N1")}");
         o.WriteLine($"  {"peak RSS (MB, whole process)",-30} {F(RssMb, "0.0")}");
         o.WriteLine($"  {"managed bytes per loop",-30} {F(BytesPerLoop, "N0")}");
         o.WriteLine($"  {"load average (1, 5, 15 min)",-30} {load}");

@@ -47,15 +47,17 @@ internal static class InProcessBench
 
         var firstRound = round;
         gauge.Mark();
+        var allocated = GC.GetTotalAllocatedBytes(precise: true);
         var clock = Stopwatch.StartNew();
         while (clock.Elapsed.TotalSeconds < o.Seconds) Round();
         var wall = clock.Elapsed.TotalSeconds;
+        allocated = GC.GetTotalAllocatedBytes(precise: true) - allocated;
         var cpu = gauge.CpuSeconds();
         var cores = gauge.Cores();
         var updates = (double)(round - firstRound) * routes.Length;
         var heapAfter = GC.GetTotalMemory(forceFullCollection: true);
         GC.KeepAlive(plant);
         return new BenchResult("in-process, one thread; processed = per CPU second", o.Loops, (long)updates, (long)updates, updates / wall, updates / Math.Max(cpu, 1e-9),
-            null, null, 0, 0, null, null, cores, gauge.PeakRssMb, (heapAfter - heapBefore) / (double)o.Loops, cpu * 1e6 / updates);
+            null, null, 0, 0, null, null, cores, gauge.PeakRssMb, (heapAfter - heapBefore) / (double)o.Loops, cpu * 1e6 / updates, allocated / updates);
     }
 }

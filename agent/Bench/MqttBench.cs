@@ -82,14 +82,17 @@ internal static class MqttBench
                 var report = ReportAsync(gen, tally, plant, progress, reporting.Token);
                 gauge.Mark();
                 var countAtMark = 0L;
+                var allocatedAtMark = 0L;
                 await gen.RunAsync(o.Rate, duration, warmUp, () => tally.Count, seq =>
                 {
                     Volatile.Write(ref tally.TimeFrom, seq);
                     countAtMark = tally.Count;
+                    allocatedAtMark = GC.GetTotalAllocatedBytes();
                     gauge.Mark();
                 }, ct);
                 var cores = gauge.Cores();
                 var cpuPerUpdate = gauge.CpuSeconds() * 1e6 / Math.Max(1, tally.Count - countAtMark);
+                var allocatedPerUpdate = (GC.GetTotalAllocatedBytes() - allocatedAtMark) / (double)Math.Max(1, tally.Count - countAtMark);
                 await DrainAsync(gen, tally, ct);
                 await reporting.CancelAsync();
                 await report;
@@ -101,7 +104,7 @@ internal static class MqttBench
                 await app.StopAsync(CancellationToken.None);
                 return new BenchResult(o.Rate is null ? "MQTT, flat out" : "MQTT, fixed rate", o.Loops, gen.Published, tally.Count, gen.OfferedPerSecond, processed,
                     baseline, baseline is > 0 ? processed / baseline : null, gen.Published - tally.Count, tally.Duplicates,
-                    tally.Latency.Percentile(0.99), tally.Latency.Percentile(0.5), cores, rss, (heapAfter - heapBefore) / (double)o.Loops, cpuPerUpdate);
+                    tally.Latency.Percentile(0.99), tally.Latency.Percentile(0.5), cores, rss, (heapAfter - heapBefore) / (double)o.Loops, cpuPerUpdate, allocatedPerUpdate);
             }
             finally
             {
@@ -136,10 +139,17 @@ internal static class MqttBench
     private static async Task ReportAsync(BenchGenerator gen, Tally tally, PlantState plant, TextWriter progress, CancellationToken ct)
     {
         var clock = Stopwatch.StartNew();
+        var pause = GC.GetTotalPauseDuration();
+        int gen0 = GC.CollectionCount(0), gen1 = GC.CollectionCount(1), gen2 = GC.CollectionCount(2);
         while (!ct.IsCancellationRequested)
         {
             await Task.Delay(10_000, ct).ConfigureAwait(ConfigureAwaitOptions.SuppressThrowing);
-            progress.WriteLine($"bench: {clock.Elapsed.TotalSeconds,6:0} s  published {gen.Published,12:N0}  processed {tally.Count,12:N0}  behind {gen.Published - tally.Count,10:N0}  agent received {plant.Counters().Received,12:N0}");
+            // The window's longest latency beside the collector's pauses tells a GC pause from other stalls.
+            var p = GC.GetTotalPauseDuration();
+            int g0 = GC.CollectionCount(0), g1 = GC.CollectionCount(1), g2 = GC.CollectionCount(2);
+            progress.WriteLine($"bench: {clock.Elapsed.TotalSeconds,6:0} s  published {gen.Published,12:N0}  processed {tally.Count,12:N0}  behind {gen.Published - tally.Count,10:N0}  agent received {plant.Counters().Received,12:N0}"
+                + $"  max latency {tally.TakeWindowMaxMs(),7:0} ms  GC pause {(p - pause).TotalMilliseconds,5:0} ms, gen0 {g0 - gen0}, gen1 {g1 - gen1}, gen2 {g2 - gen2}");
+            (pause, gen0, gen1, gen2) = (p, g0, g1, g2);
         }
     }
 

@@ -9,7 +9,7 @@ namespace LoopWatch.Agent.Bench;
 internal sealed class Tally
 {
     private readonly SeenSet _seen = new();
-    private long _count, _duplicates, _lastTicks;
+    private long _count, _duplicates, _lastTicks, _windowMax;
 
     /// <summary>Latency from publish to this consumer.</summary>
     public LatencyHistogram Latency { get; } = new();
@@ -35,5 +35,12 @@ internal sealed class Tally
         Interlocked.Increment(ref _count);
         Volatile.Write(ref _lastTicks, now);
         if (seq >= Volatile.Read(ref TimeFrom)) Latency.Record(now - sent);
+        var latency = now - sent;
+        // A running maximum per progress line shows whether the tail comes in bursts (a pause) or spreads evenly.
+        for (var seen = Volatile.Read(ref _windowMax); latency > seen; seen = Volatile.Read(ref _windowMax))
+            if (Interlocked.CompareExchange(ref _windowMax, latency, seen) == seen) break;
     }
+
+    /// <summary>The longest latency since the last call, in milliseconds, and starts a new window.</summary>
+    public double TakeWindowMaxMs() => Interlocked.Exchange(ref _windowMax, 0) * 1000.0 / Stopwatch.Frequency;
 }

@@ -25,6 +25,8 @@ public sealed class OscillationDetector : LoopDetector
     private readonly float[] _errorWork, _outputWork;
     private readonly double[] _crossings;
     private readonly double _windowSampleS, _defaultUltimateS;
+    // Copied out of the spec and options, read on every sample: the detector's own cache lines, not three more objects'.
+    private readonly double _span, _configuredUltimateS;
 
     private double _sumError, _sumOutput;
     private int _summed, _sinceEvaluation, _workStep = 1;
@@ -38,6 +40,8 @@ public sealed class OscillationDetector : LoopDetector
         _spec = spec;
         _options = options ?? new OscillationOptions();
         _defaultUltimateS = OscillationOptions.DefaultUltimatePeriodS(spec.Process);
+        _span = spec.Span;
+        _configuredUltimateS = _options.UltimatePeriodS ?? spec.Tuning.TiSeconds ?? double.NaN;
         _counter = new LoadDisturbanceCounter(spec.Limits.OscillationAmplitudePct, _options.SupervisionPeriods);
         var n = _options.WindowSamples;
         _error = new RingBuffer(n);
@@ -56,7 +60,7 @@ public sealed class OscillationDetector : LoopDetector
 
     /// <summary>The T_u that sets Hagglund's IAE limit and T_sup now: option, Tuning:TiSeconds (Hagglund's suggestion), observed period, default by process kind.</summary>
     public double UltimatePeriodS =>
-        _options.UltimatePeriodS ?? _spec.Tuning.TiSeconds ?? (double.IsNaN(_observedPeriodS) ? _defaultUltimateS : _observedPeriodS);
+        !double.IsNaN(_configuredUltimateS) ? _configuredUltimateS : double.IsNaN(_observedPeriodS) ? _defaultUltimateS : _observedPeriodS;
 
     /// <summary>Hagglund's counter, for display and tests.</summary>
     public LoadDisturbanceCounter Counter => _counter;
@@ -81,7 +85,7 @@ public sealed class OscillationDetector : LoopDetector
             return;
         }
         _wasAuto = true;
-        var e = (sample.Sp - sample.Pv) / _spec.Span * 100;
+        var e = (sample.Sp - sample.Pv) / _span * 100;
         // Measurement noise also crosses zero with some IAE: the count alone raises only once the ACF sees a regular period.
         if (_counter.Step(ticks, e, UltimatePeriodS) && _counter.LastWasLoad && _counter.Count > _options.LoadLimitCount
             && LastAcf.Regularity > _options.RegularityLimit)

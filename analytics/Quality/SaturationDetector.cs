@@ -14,8 +14,8 @@ public sealed class SaturationDetector : LoopDetector
 {
     private readonly LoopSpec _spec;
     private readonly QualityOptions _options;
-    private readonly long[] _minute;
-    private readonly int[] _good, _auto, _high, _low, _highAuto, _lowAuto;
+    // One 32-byte tally per minute: a sample touches one cache line, not six arrays (thousands of loops do not fit in cache).
+    private readonly MinuteTally[] _minutes;
     private long _current = long.MinValue, _firstMinute = long.MinValue, _minuteEnd = long.MinValue;
     private int _slot;
     private bool _raised;
@@ -27,14 +27,8 @@ public sealed class SaturationDetector : LoopDetector
         _spec = spec;
         _options = options ?? new QualityOptions();
         var n = Math.Max(_options.StatisticsWindowMinutes, _options.SaturationWindowMinutes) + 1;
-        _minute = new long[n];
-        Array.Fill(_minute, long.MinValue);
-        _good = new int[n];
-        _auto = new int[n];
-        _high = new int[n];
-        _low = new int[n];
-        _highAuto = new int[n];
-        _lowAuto = new int[n];
+        _minutes = new MinuteTally[n];
+        for (var i = 0; i < n; i++) _minutes[i].Minute = long.MinValue;
     }
 
     /// <inheritdoc />
@@ -51,12 +45,12 @@ public sealed class SaturationDetector : LoopDetector
             Judge(sample.Ticks, board);
             _slot = Slot(minute);
         }
-        var slot = _slot;
+        ref var t = ref _minutes[_slot];
         var auto = sample.InAuto;
-        _good[slot]++;
-        if (auto) _auto[slot]++;
-        if (sample.Op >= _options.SaturationHighPct) { _high[slot]++; if (auto) _highAuto[slot]++; }
-        else if (sample.Op <= _options.SaturationLowPct) { _low[slot]++; if (auto) _lowAuto[slot]++; }
+        t.Good++;
+        if (auto) t.Auto++;
+        if (sample.Op >= _options.SaturationHighPct) { t.High++; if (auto) t.HighAuto++; }
+        else if (sample.Op <= _options.SaturationLowPct) { t.Low++; if (auto) t.LowAuto++; }
     }
 
     /// <inheritdoc />
@@ -76,7 +70,7 @@ public sealed class SaturationDetector : LoopDetector
     /// <inheritdoc />
     public override void Reset()
     {
-        Array.Fill(_minute, long.MinValue);
+        for (var i = 0; i < _minutes.Length; i++) _minutes[i].Minute = long.MinValue;
         _firstMinute = long.MinValue;
         _current = long.MinValue;
         _minuteEnd = long.MinValue;
@@ -107,22 +101,23 @@ public sealed class SaturationDetector : LoopDetector
     private void Sum(long from, long to, out long good, out long auto, out long high, out long low, out long highAuto, out long lowAuto)
     {
         good = auto = high = low = highAuto = lowAuto = 0;
-        for (var i = 0; i < _minute.Length; i++)
+        foreach (ref readonly var t in _minutes.AsSpan())
         {
-            var m = _minute[i];
-            if (m < from || m > to) continue;
-            good += _good[i]; auto += _auto[i]; high += _high[i]; low += _low[i]; highAuto += _highAuto[i]; lowAuto += _lowAuto[i];
+            if (t.Minute < from || t.Minute > to) continue;
+            good += t.Good; auto += t.Auto; high += t.High; low += t.Low; highAuto += t.HighAuto; lowAuto += t.LowAuto;
         }
     }
 
     private int Slot(long minute)
     {
-        var slot = (int)(minute % _minute.Length);
-        if (_minute[slot] != minute)
-        {
-            _minute[slot] = minute;
-            _good[slot] = _auto[slot] = _high[slot] = _low[slot] = _highAuto[slot] = _lowAuto[slot] = 0;
-        }
+        var slot = (int)(minute % _minutes.Length);
+        if (_minutes[slot].Minute != minute) _minutes[slot] = new MinuteTally { Minute = minute };
         return slot;
+    }
+
+    private struct MinuteTally
+    {
+        public long Minute;
+        public int Good, Auto, High, Low, HighAuto, LowAuto;
     }
 }

@@ -18,6 +18,9 @@ public static partial class AgentLog
     [LoggerMessage(1004, LogLevel.Warning, "Disconnected from MQTT broker ({Reason})")]
     public static partial void Disconnected(ILogger logger, string reason);
 
+    [LoggerMessage(1008, LogLevel.Warning, "TLS to MQTT broker {Host}:{Port} refused: {Reason}")]
+    public static partial void CertificateRefused(ILogger logger, string host, int port, string reason);
+
     [LoggerMessage(1005, LogLevel.Information, "Finding {Change} on {LoopId}: {Kind}")]
     public static partial void FindingChanged(ILogger logger, string loopId, string change, string kind);
 

@@ -23,6 +23,7 @@ public static class BrokerTls
                 if (value is not null) errors.Add($"Broker:{key}: is set while Broker:UseTls is false; set UseTls to true to connect over TLS");
             return errors;
         }
+        if (b.Embedded) errors.Add("Broker:UseTls: the embedded broker listens without TLS; UseTls is for an external broker");
         if (b.CaFile is not null) Try(errors, "Broker:CaFile", b.CaFile, () => TrustChain(b.CaFile));
         if (b.CertFile is not null && b.KeyFile is null) errors.Add("Broker:KeyFile: is missing while Broker:CertFile is set");
         else if (b.KeyFile is not null && b.CertFile is null) errors.Add("Broker:CertFile: is missing while Broker:KeyFile is set");

@@ -125,6 +125,19 @@ public sealed class Mosquitto : IAsyncDisposable
     public Task PublishFileAsync(string topic, string file, bool retain = false) =>
         MosquittoPubAsync(["-t", topic, "-f", file, "-q", "1", .. retain ? new[] { "-r" } : []]);
 
+    /// <summary>Runs mosquitto_sub for the first message (retained ones included) on <paramref name="topic"/>; "topic payload", or empty after <paramref name="waitSeconds"/>.</summary>
+    public async Task<string> SubscribeOneAsync(string topic, int waitSeconds = 5)
+    {
+        var psi = new ProcessStartInfo(Tool("mosquitto_sub"), ["-h", "127.0.0.1", "-p", Port.ToString(), .. _clientArgs, "-C", "1", "-W", waitSeconds.ToString(), "-v", "-t", topic])
+        { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        using var sub = Process.Start(psi)!;
+        var output = sub.StandardOutput.ReadToEndAsync();
+        var err = sub.StandardError.ReadToEndAsync();
+        await sub.WaitForExitAsync();
+        await err;
+        return await output;
+    }
+
     private async Task MosquittoPubAsync(string[] args)
     {
         var psi = new ProcessStartInfo(Tool("mosquitto_pub"), ["-h", "127.0.0.1", "-p", Port.ToString(), .. _clientArgs, .. args])

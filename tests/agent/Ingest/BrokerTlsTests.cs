@@ -29,6 +29,7 @@ public sealed class BrokerTlsTests
         await PublishLoopAsync(broker, "FIC-960");
         await UntilAccepted(agent, 3);
         Assert.Contains(logs.Collector.GetSnapshot(), r => r.Id.Id == 1002);
+        await UntilHealthRetained(broker, "FIC-960");
         Assert.DoesNotContain(logs.Collector.GetSnapshot(), r => r.Id.Id is 1003 or 1008);
     }
 
@@ -91,16 +92,14 @@ public sealed class BrokerTlsTests
         var client = pki.IssueClient("loopwatch-agent", keyPassword);
         await using var broker = await Mosquitto.StartTlsAsync(pki, pki.IssueServer("Quillmoor broker"), requireCertificate: true,
             publisher: pki.IssueClient("Quillmoor gateway"));
-        var options = FromEnvironment(new()
-        {
-            ["LOOPWATCH__BROKER__USETLS"] = "true",
-            ["LOOPWATCH__BROKER__CAFILE"] = pki.CaFile,
-            ["LOOPWATCH__BROKER__CERTFILE"] = client.CertFile,
-            ["LOOPWATCH__BROKER__KEYFILE"] = client.KeyFile,
-            ["LOOPWATCH__BROKER__KEYPASSWORD"] = keyPassword,
-            ["LOOPWATCH__BROKER__USERNAME"] = "quillmoor-agent",
-            ["LOOPWATCH__BROKER__PASSWORD"] = password,
-        });
+        var options = EnvironmentOptions.Load(
+            ("LOOPWATCH__BROKER__USETLS", "true"),
+            ("LOOPWATCH__BROKER__CAFILE", pki.CaFile),
+            ("LOOPWATCH__BROKER__CERTFILE", client.CertFile),
+            ("LOOPWATCH__BROKER__KEYFILE", client.KeyFile),
+            ("LOOPWATCH__BROKER__KEYPASSWORD", keyPassword),
+            ("LOOPWATCH__BROKER__USERNAME", "quillmoor-agent"),
+            ("LOOPWATCH__BROKER__PASSWORD", password));
         Assert.Equal((client.KeyFile, keyPassword), (options.Broker.KeyFile, options.Broker.KeyPassword));
 
         var logs = new FakeLoggerProvider();
@@ -122,6 +121,8 @@ public sealed class BrokerTlsTests
         await UntilConnected(agent);
         await PublishLoopAsync(broker, "FIC-966");
         await UntilAccepted(agent, 3);
+        // The side connection (health messages) goes through the same TLS settings, client certificate included.
+        await UntilHealthRetained(broker, "FIC-966");
 
         // Neither password nor any line of the private key in a message, a structured value or an exception text.
         var keyLines = client.KeyPem.Split('\n', StringSplitOptions.TrimEntries | StringSplitOptions.RemoveEmptyEntries).Where(l => !l.StartsWith("-----", StringComparison.Ordinal)).ToList();
@@ -163,6 +164,7 @@ public sealed class BrokerTlsTests
             ($$"""{ "UseTls": true, "CertFile": {{J(client.CertFile)}}, "KeyFile": {{J(client.KeyFile)}}, "KeyPassword": {{J(wrongPassword)}} }""", "Broker:CertFile"),
             ($$"""{ "UseTls": true, "CertFile": {{J(client.CertFile)}}, "KeyFile": {{J(missing)}} }""", "Broker:KeyFile"),
             ("""{ "UseTls": true, "TlsServerName": "not a name" }""", "Broker:TlsServerName"),
+            ("""{ "UseTls": true, "Embedded": true }""", "Broker:UseTls"), // the embedded broker has no TLS listener
         ];
         foreach (var (broker, named) in cases)
         {
@@ -192,6 +194,11 @@ public sealed class BrokerTlsTests
     private static Task UntilAccepted(RunningAgent agent, long count) =>
         Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("accepted").GetInt64(), n => n >= count, what: $"{count} values accepted");
 
+    /// <summary>Waits for the loop's retained health message, read over TLS by mosquitto_sub: the agent's side connection got in.</summary>
+    private static Task UntilHealthRetained(Mosquitto broker, string id) =>
+        Eventually.Until(() => broker.SubscribeOneAsync($"loopwatch/{id}/health"), o => o.StartsWith($"loopwatch/{id}/health {{", StringComparison.Ordinal),
+            TimeSpan.FromSeconds(20), "health message published over TLS");
+
     /// <summary>One value on each of the loop's PV, SP and OP tags, published over the broker's TLS listener at QoS 1.</summary>
     private static async Task PublishLoopAsync(Mosquitto broker, string id)
     {
@@ -206,21 +213,5 @@ public sealed class BrokerTlsTests
         List<double> Delays() => logs.Collector.GetSnapshot().Where(r => r.Id.Id == 1003)
             .Select(r => double.Parse(r.StructuredState!.Single(kv => kv.Key == "DelaySeconds").Value!, CultureInfo.InvariantCulture)).ToList();
         return await Eventually.Until(() => Task.FromResult(Delays()), d => d.Count >= count, TimeSpan.FromSeconds(20), $"{count} retries logged");
-    }
-
-    private static AgentOptions FromEnvironment(Dictionary<string, string> variables)
-    {
-        foreach (var (k, v) in variables) Environment.SetEnvironmentVariable(k, v);
-        try
-        {
-            var errors = new List<string>();
-            var options = AgentConfiguration.Load(null, new Dictionary<string, string?>(), errors);
-            Assert.Empty(errors);
-            return options;
-        }
-        finally
-        {
-            foreach (var k in variables.Keys) Environment.SetEnvironmentVariable(k, null);
-        }
     }
 }

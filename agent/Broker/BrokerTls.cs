@@ -36,8 +36,11 @@ public static class BrokerTls
         return errors;
     }
 
-    /// <summary>Turns on TLS as configured (nothing without <c>UseTls</c>); <paramref name="refused"/> hears why a broker's certificate was refused.</summary>
-    public static MqttClientOptionsBuilder WithBrokerTls(this MqttClientOptionsBuilder builder, BrokerOptions b, Action<string>? refused = null)
+    /// <summary>
+    /// Turns on TLS as configured (nothing without <c>UseTls</c>); <paramref name="refused"/> hears why a broker's certificate
+    /// was refused, <paramref name="accepted"/> which certificate was accepted.
+    /// </summary>
+    public static MqttClientOptionsBuilder WithBrokerTls(this MqttClientOptionsBuilder builder, BrokerOptions b, Action<string>? refused = null, Action<string>? accepted = null)
     {
         if (!b.UseTls) return builder;
         // Read at every connection, so renewed files are taken at the next reconnect without a restart.
@@ -53,7 +56,11 @@ public static class BrokerTls
             // The handler only reports: it accepts exactly what the default check accepts (no error at all).
             o.WithCertificateValidationHandler(e =>
             {
-                if (e.SslPolicyErrors == SslPolicyErrors.None) return true;
+                if (e.SslPolicyErrors == SslPolicyErrors.None)
+                {
+                    accepted?.Invoke(Describe(e.Certificate));
+                    return true;
+                }
                 refused?.Invoke(Reason(e.Certificate, e.Chain, e.SslPolicyErrors));
                 return false;
             });
@@ -72,8 +79,12 @@ public static class BrokerTls
             var status = chain?.ChainStatus.Select(s => $"{s.Status}: {s.StatusInformation.Trim()}").Distinct() ?? [];
             parts.Add($"not trusted ({string.Join("; ", status)}); Broker:CaFile names the CA that issued it");
         }
-        return $"certificate '{certificate.Subject}' issued by '{certificate.Issuer}': {string.Join(", ", parts)}";
+        return $"{Describe(certificate)}: {string.Join(", ", parts)}";
     }
+
+    private static string Describe(X509Certificate certificate) => certificate is X509Certificate2 c
+        ? $"certificate '{c.Subject}' issued by '{c.Issuer}', valid until {c.NotAfter.ToUniversalTime():yyyy-MM-dd HH:mm} UTC"
+        : $"certificate '{certificate.Subject}' issued by '{certificate.Issuer}'";
 
     private static X509Certificate2Collection TrustChain(string file)
     {

@@ -78,7 +78,8 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
 
     private async Task ConnectAsync(MqttClientFactory factory, IMqttClient client, CancellationToken ct)
     {
-        var builder = Broker.BrokerClient.Builder(options, options.ClientId, reason => AgentLog.CertificateRefused(log, options.Host, options.Port, reason))
+        string? certificate = null;
+        var builder = Broker.BrokerClient.Builder(options, options.ClientId, reason => AgentLog.CertificateRefused(log, options.Host, options.Port, reason), c => certificate = c)
             .WithProtocolVersion(MQTTnet.Formatter.MqttProtocolVersion.V500)
             .WithCleanStart(false)
             .WithSessionExpiryInterval(3600)
@@ -90,6 +91,7 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
         Interlocked.Increment(ref plant.Connections);
         plant.BrokerConnected = true;
         AgentLog.Subscribed(log, options.Host, options.Port, topics.Count);
+        if (certificate is not null) AgentLog.TlsConnected(log, options.Host, options.Port, certificate);
     }
 
     /// <summary>The messages of an exception and its causes: a TLS failure says what went wrong only in the inner ones.</summary>

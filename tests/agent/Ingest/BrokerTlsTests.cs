@@ -29,6 +29,10 @@ public sealed class BrokerTlsTests
         await PublishLoopAsync(broker, "FIC-960");
         await UntilAccepted(agent, 3);
         Assert.Contains(logs.Collector.GetSnapshot(), r => r.Id.Id == 1002);
+        // The accepted certificate is logged with its end of validity, for renewals.
+        var tls = logs.Collector.GetSnapshot().First(r => r.Id.Id == 1009).Message;
+        Assert.Contains($"127.0.0.1:{broker.Port}", tls);
+        Assert.Contains("'CN=Quillmoor broker, O=Quillmoor Works' issued by 'CN=Quillmoor Works site CA, O=Quillmoor Works', valid until", tls);
         await UntilHealthRetained(broker, "FIC-960");
         Assert.DoesNotContain(logs.Collector.GetSnapshot(), r => r.Id.Id is 1003 or 1008);
     }

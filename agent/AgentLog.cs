@@ -18,6 +18,12 @@ public static partial class AgentLog
     [LoggerMessage(1004, LogLevel.Warning, "Disconnected from MQTT broker ({Reason})")]
     public static partial void Disconnected(ILogger logger, string reason);
 
+    [LoggerMessage(1008, LogLevel.Warning, "TLS to MQTT broker {Host}:{Port} refused: {Reason}")]
+    public static partial void CertificateRefused(ILogger logger, string host, int port, string reason);
+
+    [LoggerMessage(1009, LogLevel.Information, "TLS to MQTT broker {Host}:{Port}: {Certificate}")]
+    public static partial void TlsConnected(ILogger logger, string host, int port, string certificate);
+
     [LoggerMessage(1005, LogLevel.Information, "Finding {Change} on {LoopId}: {Kind}")]
     public static partial void FindingChanged(ILogger logger, string loopId, string change, string kind);
 

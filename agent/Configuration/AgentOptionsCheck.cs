@@ -18,6 +18,7 @@ public static class AgentOptionsCheck
         else if (b.Embedded && !System.Net.IPAddress.IsLoopback(listen) && (string.IsNullOrEmpty(b.Username) || string.IsNullOrEmpty(b.Password)))
             errors.Add($"Broker:ListenAddress: the embedded broker on {listen}, off loopback, needs Broker:Username and Broker:Password");
         if (b.Username is null && b.Password is not null) errors.Add("Broker:Username: is missing while Broker:Password is set");
+        errors.AddRange(Broker.BrokerTls.Check(b));
         foreach (var url in (options.Dashboard.Urls ?? "").Split(';', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
         {
             if (!Uri.TryCreate(url, UriKind.Absolute, out var uri) || (uri.Scheme != "http" && uri.Scheme != "https"))

@@ -13,7 +13,26 @@ public sealed class BrokerOptions
     /// <summary>Password of <see cref="Username"/>; set it through <c>LOOPWATCH__BROKER__PASSWORD</c> rather than the file. Never logged.</summary>
     public string? Password { get; set; }
 
+    /// <summary>Connect to the broker over TLS; the broker's certificate is always checked (see <see cref="CaFile"/>). Default false.</summary>
     public bool UseTls { get; set; }
+
+    /// <summary>
+    /// With <see cref="UseTls"/>: a PEM file of the site's CA certificate(s); the broker's certificate must chain to one of
+    /// them. Unset: the operating system's trust store applies.
+    /// </summary>
+    public string? CaFile { get; set; }
+
+    /// <summary>With <see cref="UseTls"/>: a PEM client certificate for brokers that require one (mutual TLS); needs <see cref="KeyFile"/>.</summary>
+    public string? CertFile { get; set; }
+
+    /// <summary>The PEM private key of <see cref="CertFile"/>; its content is never logged (give the path as <c>LOOPWATCH__BROKER__KEYFILE</c> to keep it out of the file).</summary>
+    public string? KeyFile { get; set; }
+
+    /// <summary>Password of an encrypted <see cref="KeyFile"/>; set it through <c>LOOPWATCH__BROKER__KEYPASSWORD</c>. Never logged.</summary>
+    public string? KeyPassword { get; set; }
+
+    /// <summary>With <see cref="UseTls"/>: the name the broker's certificate must carry when it differs from <see cref="Host"/> (also sent as SNI).</summary>
+    public string? TlsServerName { get; set; }
 
     /// <summary>
     /// Embedded broker: the address it listens on; default 127.0.0.1. Any other address needs <see cref="Username"/> and

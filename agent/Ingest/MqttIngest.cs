@@ -60,7 +60,7 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
                 }
                 catch (Exception e)
                 {
-                    AgentLog.BrokerUnreachable(log, options.Host, options.Port, e.Message, delay.TotalSeconds);
+                    AgentLog.BrokerUnreachable(log, options.Host, options.Port, Describe(e), delay.TotalSeconds);
                     await Task.Delay(delay, time, stoppingToken).ConfigureAwait(ConfigureAwaitOptions.SuppressThrowing);
                     delay = TimeSpan.FromSeconds(Math.Min(30, delay.TotalSeconds * 2));
                     continue;
@@ -78,15 +78,12 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
 
     private async Task ConnectAsync(MqttClientFactory factory, IMqttClient client, CancellationToken ct)
     {
-        var builder = new MqttClientOptionsBuilder()
-            .WithTcpServer(options.Host, options.Port)
-            .WithClientId(options.ClientId)
+        string? certificate = null;
+        var builder = Broker.BrokerClient.Builder(options, options.ClientId, reason => AgentLog.CertificateRefused(log, options.Host, options.Port, reason), c => certificate = c)
             .WithProtocolVersion(MQTTnet.Formatter.MqttProtocolVersion.V500)
             .WithCleanStart(false)
             .WithSessionExpiryInterval(3600)
             .WithKeepAlivePeriod(TimeSpan.FromSeconds(15));
-        if (options.Username is not null) builder.WithCredentials(options.Username, options.Password);
-        if (options.UseTls) builder.WithTlsOptions(o => o.UseTls());
         await client.ConnectAsync(builder.Build(), ct);
 
         var topics = plant.Topics.Concat(sparkplug.Filters).ToList();
@@ -94,6 +91,15 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
         Interlocked.Increment(ref plant.Connections);
         plant.BrokerConnected = true;
         AgentLog.Subscribed(log, options.Host, options.Port, topics.Count);
+        if (certificate is not null) AgentLog.TlsConnected(log, options.Host, options.Port, certificate);
+    }
+
+    /// <summary>The messages of an exception and its causes: a TLS failure says what went wrong only in the inner ones.</summary>
+    private static string Describe(Exception e)
+    {
+        var messages = new List<string>();
+        for (var x = e; x is not null; x = x.InnerException) if (!messages.Contains(x.Message)) messages.Add(x.Message);
+        return string.Join(" <- ", messages);
     }
 
     private static async Task SubscribeAsync(MqttClientFactory factory, IMqttClient client, IEnumerable<string> topics, CancellationToken ct)

@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using System.Net;
 using System.Net.Http.Json;
 using System.Text.Json;
@@ -62,15 +61,8 @@ public sealed class AlarmLiveTests
         await using var agent = await RunningAgent.StartAsync([TestLoops.FastStale("FIC-971")], embedded: false, brokerPort: broker.Port,
             tweak: o => o.AlarmSystem.HealthIntervalSeconds = 1);
         // mosquitto_sub is a client we did not write; -C 1 exits after one message, retained ones included.
-        var sub = await Eventually.Until(async () =>
-        {
-            var psi = new ProcessStartInfo(Mosquitto.Tool("mosquitto_sub"), ["-h", "127.0.0.1", "-p", broker.Port.ToString(), "-C", "1", "-W", "5", "-v", "-t", "loopwatch/+/health"])
-            { RedirectStandardOutput = true, UseShellExecute = false };
-            using var p = Process.Start(psi)!;
-            var output = await p.StandardOutput.ReadToEndAsync();
-            await p.WaitForExitAsync();
-            return output;
-        }, o => o.StartsWith("loopwatch/FIC-971/health ", StringComparison.Ordinal), what: "retained health message");
+        var sub = await Eventually.Until(() => broker.SubscribeOneAsync("loopwatch/+/health"),
+            o => o.StartsWith("loopwatch/FIC-971/health ", StringComparison.Ordinal), what: "retained health message");
         var json = JsonDocument.Parse(sub["loopwatch/FIC-971/health ".Length..]).RootElement;
         Assert.Equal("FIC-971", json.GetProperty("loop").GetString());
         Assert.True(json.TryGetProperty("alarms", out _));

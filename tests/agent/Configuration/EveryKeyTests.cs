@@ -26,6 +26,11 @@ public sealed class EveryKeyTests
         { "Broker:Port", "0", "Broker:Port" },
         { "Broker:Password", "\"secret\"", "Broker:Username" }, // a password without a user name
         { "Broker:UseTls", "\"sometimes\"", "Broker:UseTls" },
+        { "Broker:CaFile", "\"/nonexistent/site-ca.pem\"", "Broker:CaFile" }, // without UseTls; unreadable files: BrokerTlsTests
+        { "Broker:CertFile", "\"/nonexistent/agent.pem\"", "Broker:CertFile" },
+        { "Broker:KeyFile", "\"/nonexistent/agent.key\"", "Broker:KeyFile" },
+        { "Broker:KeyPassword", "\"secret\"", "Broker:KeyPassword" },
+        { "Broker:TlsServerName", "\"mqtt.quillmoor.test\"", "Broker:TlsServerName" },
         { "Broker:ClientId", "\"\"", "Broker:ClientId" },
         { "Broker:MaxPendingMessagesPerClient", "0", "Broker:MaxPendingMessagesPerClient" },
         { "Broker:MaxLeadSeconds", "-1", "Broker:MaxLeadSeconds" },

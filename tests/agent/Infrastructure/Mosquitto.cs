@@ -21,6 +21,9 @@ public sealed class Mosquitto : IAsyncDisposable
 
     public int Port { get; }
 
+    /// <summary>Arguments mosquitto_pub needs for this broker's listener (the CA and client certificate of a TLS listener).</summary>
+    private string[] _clientArgs = [];
+
     public static string Binary => File.Exists("/usr/sbin/mosquitto") ? "/usr/sbin/mosquitto" : Which("mosquitto")
         ?? throw new InvalidOperationException("mosquitto is not installed: run ./test.sh, which installs the Debian package 'mosquitto'");
 
@@ -35,6 +38,32 @@ public sealed class Mosquitto : IAsyncDisposable
         // Started as root, mosquitto drops to its own user, which must be able to write the persistence file here.
         if (!OperatingSystem.IsWindows()) File.SetUnixFileMode(dir, (UnixFileMode)0b111_111_111);
         var broker = new Mosquitto(await LaunchAsync(dir, p, extraConfig, listen: true), dir, p);
+        await broker.WaitReadyAsync(p);
+        return broker;
+    }
+
+    /// <summary>
+    /// Starts the broker with one TLS listener only, on a free loopback port, serving <paramref name="server"/>. With
+    /// <paramref name="requireCertificate"/> every client must show a certificate from <paramref name="pki"/>'s CA;
+    /// mosquitto_pub then uses <paramref name="publisher"/>.
+    /// </summary>
+    public static async Task<Mosquitto> StartTlsAsync(TestPki pki, IssuedCertificate server, bool requireCertificate = false, IssuedCertificate? publisher = null)
+    {
+        var p = FreePort.Next();
+        var dir = Directory.CreateTempSubdirectory("lw-mosquitto-").FullName;
+        if (!OperatingSystem.IsWindows()) File.SetUnixFileMode(dir, (UnixFileMode)0b111_111_111);
+        // Bound to loopback like every test listener; the options after "listener" belong to it.
+        var tls = $"""
+            listener {p} 127.0.0.1
+            cafile {pki.CaFile}
+            certfile {server.CertFile}
+            keyfile {server.KeyFile}
+            require_certificate {(requireCertificate ? "true" : "false")}
+            """;
+        var broker = new Mosquitto(await LaunchAsync(dir, p, tls, listen: false), dir, p)
+        {
+            _clientArgs = ["--cafile", pki.CaFile, .. publisher is null ? [] : new[] { "--cert", publisher.CertFile, "--key", publisher.KeyFile }],
+        };
         await broker.WaitReadyAsync(p);
         return broker;
     }
@@ -96,9 +125,22 @@ public sealed class Mosquitto : IAsyncDisposable
     public Task PublishFileAsync(string topic, string file, bool retain = false) =>
         MosquittoPubAsync(["-t", topic, "-f", file, "-q", "1", .. retain ? new[] { "-r" } : []]);
 
+    /// <summary>Runs mosquitto_sub for the first message (retained ones included) on <paramref name="topic"/>; "topic payload", or empty after <paramref name="waitSeconds"/>.</summary>
+    public async Task<string> SubscribeOneAsync(string topic, int waitSeconds = 5)
+    {
+        var psi = new ProcessStartInfo(Tool("mosquitto_sub"), ["-h", "127.0.0.1", "-p", Port.ToString(), .. _clientArgs, "-C", "1", "-W", waitSeconds.ToString(), "-v", "-t", topic])
+        { RedirectStandardOutput = true, RedirectStandardError = true, UseShellExecute = false };
+        using var sub = Process.Start(psi)!;
+        var output = sub.StandardOutput.ReadToEndAsync();
+        var err = sub.StandardError.ReadToEndAsync();
+        await sub.WaitForExitAsync();
+        await err;
+        return await output;
+    }
+
     private async Task MosquittoPubAsync(string[] args)
     {
-        var psi = new ProcessStartInfo(Tool("mosquitto_pub"), ["-h", "127.0.0.1", "-p", Port.ToString(), .. args])
+        var psi = new ProcessStartInfo(Tool("mosquitto_pub"), ["-h", "127.0.0.1", "-p", Port.ToString(), .. _clientArgs, .. args])
         { RedirectStandardError = true, UseShellExecute = false };
         using var pub = Process.Start(psi)!;
         var err = await pub.StandardError.ReadToEndAsync();

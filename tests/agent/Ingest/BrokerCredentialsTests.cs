@@ -72,23 +72,8 @@ public sealed class BrokerCredentialsTests
         Assert.DoesNotContain("s3cret-pw", out2.ToString() + err2.ToString());
     }
 
-    private static AgentOptions FromEnvironment(string user, string password)
-    {
-        Environment.SetEnvironmentVariable("LOOPWATCH__BROKER__USERNAME", user);
-        Environment.SetEnvironmentVariable("LOOPWATCH__BROKER__PASSWORD", password);
-        try
-        {
-            var errors = new List<string>();
-            var options = AgentConfiguration.Load(null, new Dictionary<string, string?>(), errors);
-            Assert.Empty(errors);
-            return options;
-        }
-        finally
-        {
-            Environment.SetEnvironmentVariable("LOOPWATCH__BROKER__PASSWORD", null); // password first: never one without the user
-            Environment.SetEnvironmentVariable("LOOPWATCH__BROKER__USERNAME", null);
-        }
-    }
+    private static AgentOptions FromEnvironment(string user, string password) =>
+        EnvironmentOptions.Load(("LOOPWATCH__BROKER__USERNAME", user), ("LOOPWATCH__BROKER__PASSWORD", password));
 
     private static async Task<bool> ConnectsAsync(int port, string? user, string? password)
     {

@@ -34,18 +34,24 @@ internal static class InProcessBench
             for (var k = 0; k < routes.Length; k++) values[r][k] = BenchPlant.Value(k / BenchOptions.TagsPerLoop, k % BenchOptions.TagsPerLoop, r);
         }
 
-        long round = 0;
+        long round = 0, slowestRound = -1;
+        var slowest = TimeSpan.Zero;
         void Round()
         {
+            var started = Stopwatch.GetTimestamp();
             var ticks = BenchPlant.Ticks(round);
             var v = values[round % Pattern];
             for (var k = 0; k < routes.Length; k++) plant.Take(routes[k], ticks, v[k], SampleQuality.Good);
+            // The slowest round shows work done at once for every loop (the hourly statistics at a full hour).
+            var took = Stopwatch.GetElapsedTime(started);
+            if (took > slowest) (slowest, slowestRound) = (took, round);
             round++;
         }
         var warm = Stopwatch.StartNew();
         while (warm.Elapsed.TotalSeconds < Math.Min(5, o.Seconds / 5) || round < 2) Round();
 
         var firstRound = round;
+        (slowest, slowestRound) = (TimeSpan.Zero, -1);
         gauge.Mark();
         var allocated = GC.GetTotalAllocatedBytes(precise: true);
         var clock = Stopwatch.StartNew();
@@ -57,6 +63,8 @@ internal static class InProcessBench
         var updates = (double)(round - firstRound) * routes.Length;
         var heapAfter = GC.GetTotalMemory(forceFullCollection: true);
         GC.KeepAlive(plant);
+        var typical = wall * 1000 / Math.Max(1, round - firstRound);
+        Console.Error.WriteLine($"bench: {round - firstRound} rounds of {routes.Length:N0} updates, {typical:0.0} ms each on average; slowest {slowest.TotalMilliseconds:0.0} ms at event time {new DateTimeOffset(BenchPlant.Ticks(slowestRound), TimeSpan.Zero):HH:mm:ss}");
         return new BenchResult("in-process, one thread; processed = per CPU second", o.Loops, (long)updates, (long)updates, updates / wall, updates / Math.Max(cpu, 1e-9),
             null, null, 0, 0, null, null, cores, gauge.PeakRssMb, (heapAfter - heapBefore) / (double)o.Loops, cpu * 1e6 / updates, allocated / updates);
     }

@@ -87,12 +87,12 @@ internal static class MqttBench
                 {
                     Volatile.Write(ref tally.TimeFrom, seq);
                     countAtMark = tally.Count;
-                    allocatedAtMark = GC.GetTotalAllocatedBytes();
+                    allocatedAtMark = GC.GetTotalAllocatedBytes(precise: true);
                     gauge.Mark();
                 }, ct);
                 var cores = gauge.Cores();
                 var cpuPerUpdate = gauge.CpuSeconds() * 1e6 / Math.Max(1, tally.Count - countAtMark);
-                var allocatedPerUpdate = (GC.GetTotalAllocatedBytes() - allocatedAtMark) / (double)Math.Max(1, tally.Count - countAtMark);
+                var allocatedPerUpdate = (GC.GetTotalAllocatedBytes(precise: true) - allocatedAtMark) / (double)Math.Max(1, tally.Count - countAtMark);
                 await DrainAsync(gen, tally, ct);
                 await reporting.CancelAsync();
                 await report;

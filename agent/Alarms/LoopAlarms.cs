@@ -22,6 +22,9 @@ public sealed class LoopAlarms
     private readonly TimeZoneInfo _zone;
     private long _now;
     private bool _retired;
+    private readonly bool _alwaysInWindow;
+    // Every point normal with no condition pending, as of the last full pass (cleared by any user action or restore).
+    private bool _quiet;
 
     /// <summary>
     /// The alarms of <paramref name="spec"/>; every transition goes to <paramref name="sink"/>; <paramref name="shared"/>
@@ -36,6 +39,7 @@ public sealed class LoopAlarms
         _offDelay = (long)(spec.Alarms.OffDelaySeconds * TimeSpan.TicksPerSecond);
         _zone = TimeZoneInfo.FindSystemTimeZoneById(spec.Alarms.TimeZone);
         _points = KindsFor(spec.Kind).Select(k => new AlarmPoint(spec.Id, k, spec.Alarms.PriorityOf(k))).ToArray();
+        _alwaysInWindow = spec.Alarms.ActiveWhen.Count == 0;
     }
 
     /// <summary>The loop.</summary>
@@ -61,6 +65,9 @@ public sealed class LoopAlarms
     {
         if (_retired) return;
         ticks = Advance(ticks);
+        // The common case, a healthy loop: with no finding, not in manual and every point quiet, a full pass changes
+        // nothing, and skipping it keeps the alarm points out of the cache (10,000 loops do not fit).
+        if (_quiet && board.Active.Count == 0 && mode != LoopMode.Manual && _alwaysInWindow) return;
         var stale = board.IsActive(FindingKinds.Stale);
         var outside = !InWindow(ticks);
         foreach (var p in _points)
@@ -81,6 +88,9 @@ public sealed class LoopAlarms
             var raw = finding is not null || (p.ConditionActive && AlarmDeadband.Holds(p.Kind, Spec, statistics, pv));
             Debounce(p, raw, finding, ticks);
         }
+        _quiet = true;
+        foreach (var p in _points)
+            if (p.State != AlarmState.Normal || p.ConditionActive || p.RawSince != AlarmPoint.Unset || p.ClearSince != AlarmPoint.Unset) _quiet = false;
     }
 
     /// <summary>Applies a user action (acknowledge, shelve until <paramref name="untilTicks"/>, unshelve, remove from or return to service).</summary>
@@ -90,6 +100,7 @@ public sealed class LoopAlarms
             return AlarmActionResult.Refuse(AlarmState.Normal, $"{AlarmNames.Of(trigger)} is not a user action");
         lock (_gate)
         {
+            _quiet = false;
             var p = Find(kind);
             if (p is null) return AlarmActionResult.Refuse(AlarmState.Normal, $"loop {Spec.Id} has no {kind} alarm");
             if (_retired) return AlarmActionResult.Refuse(p.State, $"loop {Spec.Id} left the configuration");
@@ -107,6 +118,7 @@ public sealed class LoopAlarms
     {
         lock (_gate)
         {
+            _quiet = false;
             _retired = true;
             ticks = Advance(ticks);
             foreach (var p in _points)
@@ -132,6 +144,7 @@ public sealed class LoopAlarms
     {
         lock (_gate)
         {
+            _quiet = false;
             var p = Find(stored.Kind);
             if (p is null || stored.State == AlarmState.SuppressedByDesign) return;
             p.State = stored.State;

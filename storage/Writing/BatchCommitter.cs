@@ -16,7 +16,7 @@ internal sealed class BatchCommitter(LoopWatchDatabase database, ILogger logger)
     /// <summary>Commits <paramref name="count"/> commands from <paramref name="start"/>; returns how many rows were left out as bad.</summary>
     public int Commit(List<StorageCommand> commands, int start, int count)
     {
-        var connection = _connection ??= database.OpenConnection();
+        var connection = _connection ??= database.OpenWriterConnection();
         try
         {
             CommitRuns(connection, commands, start, count);
@@ -29,7 +29,7 @@ internal sealed class BatchCommitter(LoopWatchDatabase database, ILogger logger)
         }
     }
 
-    /// <summary>Drops the connection after a failure; the next commit opens a fresh one.</summary>
+    /// <summary>Drops (closes) the connection after a failure; the next commit opens a fresh one.</summary>
     public void Reset()
     {
         _connection?.Dispose();

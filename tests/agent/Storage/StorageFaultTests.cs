@@ -4,6 +4,7 @@ using System.Text.Json;
 using Dapper;
 using LoopWatch.Agent.Tests.Infrastructure;
 using LoopWatch.Analytics.Configuration;
+using LoopWatch.Storage.Tests.Support;
 using Microsoft.Data.Sqlite;
 using MQTTnet;
 using Xunit.Abstractions;
@@ -52,7 +53,7 @@ public sealed class StorageFaultTests(ITestOutputHelper output)
         var db = Path.Combine(dir, "loopwatch.db");
         // In WAL mode a commit writes the -wal file first (SQLite docs, "Write-Ahead Logging"); the folder too, so no new
         // file can be made. Not the -shm: SQLite maps it into memory and a write to an immutable mapping is a SIGBUS.
-        await RunFaultAsync(dir, fault: () => Immutable.Set(db, db + "-wal", dir).Dispose, readOnly: true);
+        await RunFaultAsync(dir, fault: () => ImmutableFiles.Set(db, db + "-wal", dir).Dispose, readOnly: true);
     }
 
     [Fact]
@@ -69,7 +70,7 @@ public sealed class StorageFaultTests(ITestOutputHelper output)
         SqliteConnection.ClearAllPools();
 
         // The file alone: a folder SQLite cannot make its -wal and -shm in is a start-up failure (see the next test).
-        using var immutable = Immutable.Set(db);
+        using var immutable = ImmutableFiles.Set(db);
         await RunFaultAsync(dir, fault: () => immutable.Dispose, readOnly: true, faultBeforeStart: true, journalBefore: before);
     }
 
@@ -88,7 +89,7 @@ public sealed class StorageFaultTests(ITestOutputHelper output)
 
         // Without its -wal and -shm and unable to make them, SQLite cannot even read a WAL database: no alarm state can be
         // restored, so the agent stops with the reason (exit 1, which the systemd unit restarts) instead of running blind.
-        using var immutable = Immutable.Set(db, data);
+        using var immutable = ImmutableFiles.Set(db, data);
         await using var agent = AgentProcess.Start(["run", "--config", config, "--data-dir", data], new Dictionary<string, string>());
         Assert.True(await agent.WaitForExitAsync(TimeSpan.FromSeconds(60)), "the agent should stop");
         var stderr = string.Join('\n', agent.Stderr);
@@ -207,53 +208,6 @@ public sealed class StorageFaultTests(ITestOutputHelper output)
         var ts = DateTimeOffset.UtcNow.ToString("O");
         foreach (var (tag, v) in new[] { ("pv", "100"), ("sp", "100"), ("op", "40"), ("mode", "\"auto\"") })
             await client.PublishStringAsync($"test/{Id}/{tag}", $$"""{"value": {{v}}, "timestamp": "{{ts}}"}""");
-    }
-
-    /// <summary>
-    /// Files made immutable (<c>chattr +i</c>, Debian's e2fsprogs): even root's writes through descriptors already open are
-    /// refused with EPERM. Dispose clears the flag, also when the test failed, so the folder can be deleted. A missing
-    /// chattr or a file system that refuses the flag fails the test.
-    /// </summary>
-    private sealed class Immutable : IDisposable
-    {
-        private readonly string[] _paths;
-        private int _cleared;
-
-        private Immutable(string[] paths) => _paths = paths;
-
-        public static Immutable Set(params string[] paths)
-        {
-            foreach (var path in paths)
-                if (!File.Exists(path) && !Directory.Exists(path)) throw new InvalidOperationException($"{path} does not exist, nothing to make read-only");
-            Chattr("+i", paths);
-            return new Immutable(paths);
-        }
-
-        public void Dispose()
-        {
-            if (Interlocked.Exchange(ref _cleared, 1) == 0) Chattr("-i", _paths);
-        }
-
-        private static void Chattr(string flag, string[] paths)
-        {
-            Process p;
-            try
-            {
-                p = Process.Start(new ProcessStartInfo("chattr", [flag, .. paths]) { RedirectStandardError = true, UseShellExecute = false })!;
-            }
-            catch (System.ComponentModel.Win32Exception e)
-            {
-                throw new InvalidOperationException($"chattr could not be run ({e.Message}): run ./test.sh, which installs the Debian package 'e2fsprogs'", e);
-            }
-            using (p)
-            {
-                var err = p.StandardError.ReadToEnd();
-                p.WaitForExit();
-                if (p.ExitCode != 0)
-                    throw new InvalidOperationException($"chattr {flag} {string.Join(' ', paths)} failed ({p.ExitCode}): {err.Trim()}; " +
-                        "the read-only database tests need root and a file system with the immutable flag (ext4, xfs, btrfs; not tmpfs)");
-            }
-        }
     }
 
     /// <summary>A 2 MB tmpfs mounted for one test (needs root, as CI runs); a refused mount fails the test.</summary>

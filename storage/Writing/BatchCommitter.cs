@@ -29,7 +29,7 @@ internal sealed class BatchCommitter(LoopWatchDatabase database, ILogger logger)
         }
     }
 
-    /// <summary>Drops (closes) the connection after a failure; the next commit opens a fresh one.</summary>
+    /// <summary>Drops the connection after a failure; the next commit opens a fresh one.</summary>
     public void Reset()
     {
         _connection?.Dispose();

@@ -9,6 +9,8 @@ command -v mosquitto_pub >/dev/null 2>&1 || need+=(mosquitto-clients)
 [ -x /usr/bin/chromium ] || need+=(chromium)
 # systemd-analyze checks the shipped unit file (deploy/loopwatch.service).
 command -v systemd-analyze >/dev/null 2>&1 || need+=(systemd)
+# chattr makes the database immutable in the read-only database tests (tests/agent/Storage/StorageFaultTests.cs).
+command -v chattr >/dev/null 2>&1 || need+=(e2fsprogs)
 if [ ${#need[@]} -gt 0 ]; then
   echo "test.sh: installing ${need[*]}"
   sudo_cmd=""

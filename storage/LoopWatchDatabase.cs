@@ -14,6 +14,7 @@ namespace LoopWatch.Storage;
 public sealed class LoopWatchDatabase : IDisposable
 {
     private readonly string _connectionString;
+    private readonly string _writerConnectionString;
     private readonly string _connectionPragmas;
 
     private LoopWatchDatabase(StorageOptions options, string fullPath)
@@ -29,6 +30,9 @@ public sealed class LoopWatchDatabase : IDisposable
             ForeignKeys = true,
             DefaultTimeout = Math.Max(1, (int)Math.Ceiling(options.BusyTimeout.TotalSeconds)),
         }.ToString();
+        // SQLite opens a file it may not write read-only and stays so; outside the pool, a dropped writer connection
+        // really closes and the next one sees the file as it is now.
+        _writerConnectionString = new SqliteConnectionStringBuilder(_connectionString) { Pooling = false }.ToString();
         // synchronous and busy_timeout are per connection, so every opened connection gets them.
         _connectionPragmas = "PRAGMA synchronous = NORMAL; PRAGMA busy_timeout = " +
             ((long)options.BusyTimeout.TotalMilliseconds).ToString(CultureInfo.InvariantCulture) + ";";
@@ -52,6 +56,7 @@ public sealed class LoopWatchDatabase : IDisposable
 
     /// <summary>Opens or creates the database at <see cref="StorageOptions.DatabasePath"/> and applies pending migrations.</summary>
     /// <exception cref="StorageSchemaException">The file was written by a newer schema than this build knows.</exception>
+    /// <exception cref="IOException">SQLite could not open or migrate the file (e.g. it or its folder is read-only); the message says what to do.</exception>
     public static LoopWatchDatabase Open(StorageOptions options, ILogger<LoopWatchDatabase>? logger = null) =>
         Open(options, SchemaMigrations.All, TimeProvider.System, logger);
 
@@ -73,6 +78,11 @@ public sealed class LoopWatchDatabase : IDisposable
                 connection, fullPath, migrations, time, logger ?? NullLogger.Instance);
             database.SchemaVersion = connection.ExecuteScalar<int>("PRAGMA user_version");
         }
+        catch (SqliteException e)
+        {
+            database.Dispose();
+            throw new IOException(OpenFailure(fullPath, e), e);
+        }
         catch
         {
             database.Dispose();
@@ -81,10 +91,34 @@ public sealed class LoopWatchDatabase : IDisposable
         return database;
     }
 
-    /// <summary>Opens a new connection with the LoopWatch pragmas set; the caller disposes it.</summary>
-    public SqliteConnection OpenConnection()
+    /// <summary>Opens a new pooled connection with the LoopWatch pragmas set; the caller disposes it.</summary>
+    public SqliteConnection OpenConnection() => Open(_connectionString);
+
+    /// <summary>Opens the storage writer's own connection, outside the pool, with the LoopWatch pragmas set.</summary>
+    internal SqliteConnection OpenWriterConnection() => Open(_writerConnectionString);
+
+    /// <summary>Closes the idle pooled connections of this file; those in use close when they are returned.</summary>
+    public void ReleasePooledConnections()
     {
-        var connection = new SqliteConnection(_connectionString);
+        using var connection = new SqliteConnection(_connectionString);
+        SqliteConnection.ClearPool(connection);
+    }
+
+    /// <summary>Closes the pooled connections of this file so it can be moved or deleted.</summary>
+    public void Dispose() => ReleasePooledConnections();
+
+    // SQLite result codes (SQLite docs, "Result and Error Codes"): READONLY 8, CANTOPEN 14.
+    private static string OpenFailure(string path, SqliteException e) => e.SqliteErrorCode switch
+    {
+        8 => $"database '{path}' is read-only and needs a schema migration ({e.Message}); make it writable and start again",
+        14 => $"database '{path}' cannot be opened ({e.Message}): SQLite needs to read it and to make its -wal and -shm files " +
+            "beside it; make the file and its folder writable (permissions, a read-only mount, the immutable flag) and start again",
+        _ => $"database '{path}' cannot be opened: {e.Message}",
+    };
+
+    private SqliteConnection Open(string connectionString)
+    {
+        var connection = new SqliteConnection(connectionString);
         try
         {
             connection.Open();
@@ -96,12 +130,5 @@ public sealed class LoopWatchDatabase : IDisposable
             connection.Dispose();
             throw;
         }
-    }
-
-    /// <summary>Closes the pooled connections of this file so it can be moved or deleted.</summary>
-    public void Dispose()
-    {
-        using var connection = new SqliteConnection(_connectionString);
-        SqliteConnection.ClearPool(connection);
     }
 }

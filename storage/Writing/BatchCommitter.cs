@@ -16,7 +16,7 @@ internal sealed class BatchCommitter(LoopWatchDatabase database, ILogger logger)
     /// <summary>Commits <paramref name="count"/> commands from <paramref name="start"/>; returns how many rows were left out as bad.</summary>
     public int Commit(List<StorageCommand> commands, int start, int count)
     {
-        var connection = _connection ??= database.OpenConnection();
+        var connection = _connection ??= database.OpenWriterConnection();
         try
         {
             CommitRuns(connection, commands, start, count);

@@ -13,6 +13,7 @@ namespace LoopWatch.Storage.Writing;
 public sealed class StorageWriter : IAsyncDisposable
 {
     private readonly StorageOptions _options;
+    private readonly LoopWatchDatabase _database;
     private readonly TimeProvider _time;
     private readonly ILogger _logger;
     private readonly Channel<StorageCommand> _queue;
@@ -20,7 +21,7 @@ public sealed class StorageWriter : IAsyncDisposable
     private readonly List<TaskCompletionSource> _waitingFlushes = [];
     private readonly CancellationTokenSource _stop = new();
     private readonly TaskCompletionSource _completing = new(TaskCreationOptions.RunContinuationsAsynchronously);
-    private bool _completionRetried;
+    private bool _completionRetried, _readOnlySeen;
     private readonly Task _run;
     private readonly BatchCommitter _committer;
     private long _queued, _written, _dropped, _rejected, _batches, _failed, _lastBatchTicks;
@@ -33,6 +34,7 @@ public sealed class StorageWriter : IAsyncDisposable
     {
         ArgumentNullException.ThrowIfNull(database);
         _options = database.Options;
+        _database = database;
         _time = time ?? TimeProvider.System;
         _logger = logger ?? (ILogger)NullLogger.Instance;
         _committer = new BatchCommitter(database, _logger);
@@ -231,6 +233,13 @@ public sealed class StorageWriter : IAsyncDisposable
             {
                 _fault = null;
                 StorageWriterLog.Recovered(_logger, _time.GetUtcNow() - fault.Since);
+                if (_readOnlySeen)
+                {
+                    // Readers that opened the file during the fault hold read-only handles; the next writer must not get one.
+                    _readOnlySeen = false;
+                    _database.ReleasePooledConnections();
+                    StorageWriterLog.WritableAgain(_logger, _database.Path);
+                }
             }
             return true;
         }
@@ -240,16 +249,24 @@ public sealed class StorageWriter : IAsyncDisposable
             Volatile.Write(ref _backlogCount, _backlog.Count);
             Interlocked.Increment(ref _failed);
             _lastError = exception.Message;
-            // A broken connection may be the cause; the next attempt opens a fresh one.
+            // A broken connection, or one SQLite opened read-only, may be the cause; the next attempt opens a fresh one.
             _committer.Reset();
+            var text = StorageFault.Describe(exception);
             if (_fault is null)
             {
-                _fault = new StorageFault(exception.Message, _time.GetUtcNow());
+                _fault = new StorageFault(text, _time.GetUtcNow());
                 StorageWriterLog.WriteFailed(_logger, _backlog.Count, retryDelay, exception.Message, exception);
             }
             else
             {
+                // The cause can change during a fault (a refused -wal write, then a file opened read-only): show the latest.
+                if (_fault.Text != text) _fault = _fault with { Text = text };
                 StorageWriterLog.StillFailing(_logger, _backlog.Count, retryDelay, exception.Message);
+            }
+            if (!_readOnlySeen && StorageFault.IsReadOnly(exception))
+            {
+                _readOnlySeen = true;
+                StorageWriterLog.ReadOnly(_logger, _database.Path, _backlog.Count, exception.Message);
             }
             return false;
         }

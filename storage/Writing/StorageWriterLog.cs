@@ -25,6 +25,14 @@ internal static partial class StorageWriterLog
         Message = "Storage writer stopped with {Lost} commands unwritten")]
     public static partial void LostOnShutdown(ILogger logger, long lost);
 
+    [LoggerMessage(EventId = 5001, Level = LogLevel.Warning,
+        Message = "Database {Path} is read-only, keeping {Backlog} commands; the writer reopens it at each retry and writes them once it is writable: {Error}")]
+    public static partial void ReadOnly(ILogger logger, string path, int backlog, string error);
+
+    [LoggerMessage(EventId = 5002, Level = LogLevel.Information,
+        Message = "Database {Path} writable again; pooled connections opened while it was read-only are dropped, so none of them is used to write")]
+    public static partial void WritableAgain(ILogger logger, string path);
+
     [LoggerMessage(EventId = 2006, Level = LogLevel.Error,
         Message = "Storage rejected a {RowType} for its values, left out of the batch: {Error}")]
     public static partial void RowRejected(ILogger logger, string rowType, string error);

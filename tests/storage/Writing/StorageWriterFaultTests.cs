@@ -1,6 +1,7 @@
 using Dapper;
 using LoopWatch.Storage.Tests.Support;
 using LoopWatch.Storage.Writing;
+using Microsoft.Data.Sqlite;
 using Microsoft.Extensions.Logging;
 using Microsoft.Extensions.Time.Testing;
 
@@ -85,5 +86,40 @@ public sealed class StorageWriterFaultTests : IDisposable
         Assert.Equal(0, writer.Counters.Written);
         Assert.Contains(log.Entries, e => e.EventId == 2005 && e.Message.Contains("20"));
         locker.Execute("ROLLBACK");
+    }
+
+    [Fact]
+    public async Task ReadOnlyFile_NamesFaultKeepsBacklog_ThenWritesAllAndNoPooledReadOnlyConnectionIsLeft()
+    {
+        using (LoopWatchDatabase.Open(_temp.Options())) { }
+        SqliteConnection.ClearAllPools();
+        using var immutable = ImmutableFiles.Set(_temp.DatabasePath);
+        // A current schema needs no migration, so the read-only file opens (SQLite falls back to a read-only handle).
+        using var db = LoopWatchDatabase.Open(_temp.Options());
+        var clock = new FakeTimeProvider(new DateTimeOffset(2026, 3, 2, 6, 0, 0, TimeSpan.Zero));
+        var log = new RecordingLogger<StorageWriter>();
+        await using var writer = new StorageWriter(db, clock, log);
+        for (var i = 0; i < 50; i++) writer.Post(SampleRows.Journal(i, "FIC-130"));
+
+        await Eventually.TrueAsync(() => writer.Fault is not null, "fault reported");
+        // SQLite docs, "Result and Error Codes": SQLITE_READONLY (8), "attempt to write a readonly database".
+        Assert.StartsWith("database is read-only", writer.Fault!.Text);
+        Assert.Equal(50, writer.Counters.Backlog);
+        Assert.Equal(0, writer.Counters.Written);
+        // A reader during the fault leaves a pooled connection that SQLite opened read-only.
+        using (var reader = db.OpenConnection()) Assert.Equal(0, reader.ExecuteScalar<long>("SELECT count(*) FROM alarm_journal"));
+
+        immutable.Dispose();
+        await Eventually.TrueAsync(() => writer.Counters.Written == 50, "backlog written once the file is writable",
+            () => clock.Advance(TimeSpan.FromSeconds(30)));
+        Assert.Null(writer.Fault);
+        Assert.Equal(0, writer.Counters.Dropped);
+        Assert.Equal(1, log.Entries.Count(e => e.EventId == 5001 && e.Level == LogLevel.Warning));
+        Assert.Equal(1, log.Entries.Count(e => e.EventId == 5002));
+        // The pooled read-only connection was dropped: a write through the pool (user store, retention) works again.
+        using (var pooled = db.OpenConnection()) pooled.Execute("CREATE TABLE probe (x INTEGER)");
+        using var raw = _temp.OpenRaw();
+        Assert.Equal(50, raw.ExecuteScalar<long>("SELECT count(*) FROM alarm_journal WHERE loop_id = 'FIC-130'"));
+        Assert.Equal("ok", raw.ExecuteScalar<string>("PRAGMA integrity_check"));
     }
 }

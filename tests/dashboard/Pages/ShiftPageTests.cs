@@ -44,8 +44,9 @@ public sealed class ShiftPageTests
         await Chromium.ShotAsync(page, "shift-current");
 
         await page.ClickAsync("a[href='/shift?shift=previous']");
-        await page.WaitForURLAsync("**/shift?shift=previous");
-        Assert.Contains(previous.Label, await page.Locator(".shift-when").InnerTextAsync());
+        // Waits on the new page's content, not on a load event (once missed on a loaded machine, timing out after 120 s).
+        await Microsoft.Playwright.Assertions.Expect(page.Locator(".shift-when")).ToContainTextAsync(previous.Label, new() { Timeout = 120_000 });
+        Assert.EndsWith("/shift?shift=previous", page.Url);
         Assert.Contains("offset after pump change-over", await page.Locator("#comments").InnerTextAsync());
         Assert.DoesNotContain("gateway power cycled", await page.Locator("main").InnerTextAsync());
         Assert.Equal(0, await page.Locator("#handover").CountAsync());

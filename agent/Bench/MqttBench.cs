@@ -102,6 +102,7 @@ internal static class MqttBench
                 var heapAfter = GC.GetTotalMemory(forceFullCollection: true);
                 var rss = gauge.PeakRssMb;
                 await app.StopAsync(CancellationToken.None);
+                await EndSessionAsync(host, port, options.Broker.ClientId, ct);
                 return new BenchResult(o.Rate is null ? "MQTT, flat out" : "MQTT, fixed rate", o.Loops, gen.Published, tally.Count, gen.OfferedPerSecond, processed,
                     baseline, baseline is > 0 ? processed / baseline : null, gen.Published - tally.Count, tally.Duplicates,
                     tally.Latency.Percentile(0.99), tally.Latency.Percentile(0.5), cores, rss, (heapAfter - heapBefore) / (double)o.Loops, cpuPerUpdate, allocatedPerUpdate);
@@ -120,6 +121,16 @@ internal static class MqttBench
                 await broker.DisposeAsync();
             }
         }
+    }
+
+    // The agent keeps a persistent session (an hour) with a subscription per tag; left behind on an external broker by
+    // every run, they made the broker match each message against them all and later runs slower. A clean start ends it.
+    private static async Task EndSessionAsync(string host, int port, string clientId, CancellationToken ct)
+    {
+        using var client = new MQTTnet.MqttClientFactory().CreateMqttClient();
+        await client.ConnectAsync(new MQTTnet.MqttClientOptionsBuilder().WithTcpServer(host, port).WithClientId(clientId)
+            .WithProtocolVersion(MQTTnet.Formatter.MqttProtocolVersion.V500).WithCleanStart().WithSessionExpiryInterval(0).Build(), ct);
+        await client.DisconnectAsync(new MQTTnet.MqttClientDisconnectOptionsBuilder().Build(), ct);
     }
 
     // Until everything published has arrived, or nothing more has come for 30 s (the rest is lost); a loaded machine stalls for seconds.

@@ -107,11 +107,13 @@ public sealed class LoopWatchDatabase : IDisposable
     /// <summary>Closes the pooled connections of this file so it can be moved or deleted.</summary>
     public void Dispose() => ReleasePooledConnections();
 
-    // SQLite result codes (SQLite docs, "Result and Error Codes"): READONLY 8, CANTOPEN 14.
+    // SQLite result code CANTOPEN (SQLite docs, "Result and Error Codes"); READONLY is StorageFault's.
+    private const int CantOpen = 14;
+
     private static string OpenFailure(string path, SqliteException e) => e.SqliteErrorCode switch
     {
-        8 => $"database '{path}' is read-only and needs a schema migration ({e.Message}); make it writable and start again",
-        14 => $"database '{path}' cannot be opened ({e.Message}): SQLite needs to read it and to make its -wal and -shm files " +
+        Writing.StorageFault.ReadOnly => $"database '{path}' is read-only and needs a schema migration ({e.Message}); make it writable and start again",
+        CantOpen => $"database '{path}' cannot be opened ({e.Message}): SQLite needs to read it and to make its -wal and -shm files " +
             "beside it; make the file and its folder writable (permissions, a read-only mount, the immutable flag) and start again",
         _ => $"database '{path}' cannot be opened: {e.Message}",
     };

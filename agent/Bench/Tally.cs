@@ -34,8 +34,8 @@ internal sealed class Tally
         if (!_seen.Add(seq)) { Interlocked.Increment(ref _duplicates); return; }
         Interlocked.Increment(ref _count);
         Volatile.Write(ref _lastTicks, now);
-        if (seq >= Volatile.Read(ref TimeFrom)) Latency.Record(now - sent);
         var latency = now - sent;
+        if (seq >= Volatile.Read(ref TimeFrom)) Latency.Record(latency);
         // A running maximum per progress line shows whether the tail comes in bursts (a pause) or spreads evenly.
         for (var seen = Volatile.Read(ref _windowMax); latency > seen; seen = Volatile.Read(ref _windowMax))
             if (Interlocked.CompareExchange(ref _windowMax, latency, seen) == seen) break;

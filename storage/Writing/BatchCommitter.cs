@@ -7,7 +7,8 @@ namespace LoopWatch.Storage.Writing;
 /// <summary>Commits a slice of queued commands in one transaction on the writer's own connection.</summary>
 internal sealed class BatchCommitter(LoopWatchDatabase database, ILogger logger) : IDisposable
 {
-    private readonly Dictionary<string, PreparedStatement> _prepared = new(StringComparer.Ordinal);
+    // Keyed by reference: the statements are the WriteSql constants, so no row hashes a kilobyte of SQL text.
+    private readonly Dictionary<string, PreparedStatement> _prepared = new(ReferenceEqualityComparer.Instance);
     private SqliteConnection? _connection;
 
     /// <summary>Message of the last row left out for its values, if any.</summary>

@@ -25,7 +25,7 @@ public sealed class StorageWriter : IAsyncDisposable
     private readonly Task _run;
     private readonly BatchCommitter _committer;
     private long _queued, _written, _dropped, _rejected, _batches, _failed, _lastBatchTicks;
-    private int _backlogCount, _disposed;
+    private int _backlogCount, _disposed, _flushMarkers;
     private volatile string? _lastError;
     private volatile StorageFault? _fault;
 
@@ -62,7 +62,7 @@ public sealed class StorageWriter : IAsyncDisposable
             return new(
                 Interlocked.Read(ref _queued), Interlocked.Read(ref _written), Interlocked.Read(ref _dropped),
                 Interlocked.Read(ref _rejected),
-                backlog + _queue.Reader.Count, backlog, Interlocked.Read(ref _batches), Interlocked.Read(ref _failed),
+                Math.Max(0, backlog + _queue.Reader.Count - Volatile.Read(ref _flushMarkers)), backlog, Interlocked.Read(ref _batches), Interlocked.Read(ref _failed),
                 _lastError, TimeSpan.FromTicks(Interlocked.Read(ref _lastBatchTicks)));
         }
     }
@@ -89,12 +89,16 @@ public sealed class StorageWriter : IAsyncDisposable
     public async Task FlushAsync(CancellationToken cancellationToken = default)
     {
         var flushed = new TaskCompletionSource(TaskCreationOptions.RunContinuationsAsynchronously);
+        // Flush markers sit in the queue but are not rows; Pending leaves them out.
+        Interlocked.Increment(ref _flushMarkers);
         try
         {
             await _queue.Writer.WriteAsync(new StorageCommand(null, null, flushed), cancellationToken).ConfigureAwait(false);
         }
-        catch (ChannelClosedException)
+        catch (Exception exception) when (exception is ChannelClosedException or OperationCanceledException)
         {
+            Interlocked.Decrement(ref _flushMarkers);
+            if (exception is OperationCanceledException) throw;
             await _run.WaitAsync(cancellationToken).ConfigureAwait(false);
             return;
         }
@@ -163,7 +167,11 @@ public sealed class StorageWriter : IAsyncDisposable
             var lost = (long)_backlog.Count;
             while (reader.TryRead(out var command))
                 if (command.Flushed is null) lost++;
-                else _waitingFlushes.Add(command.Flushed);
+                else
+                {
+                    Interlocked.Decrement(ref _flushMarkers);
+                    _waitingFlushes.Add(command.Flushed);
+                }
             _backlog.Clear();
             Volatile.Write(ref _backlogCount, 0);
             Interlocked.Add(ref _dropped, lost);
@@ -209,8 +217,13 @@ public sealed class StorageWriter : IAsyncDisposable
     {
         while (_backlog.Count < _options.BacklogCapacity && reader.TryRead(out var command))
         {
-            if (command.Flushed is null) _backlog.Add(command);
-            else if (_backlog.Count == 0) command.Flushed.TrySetResult();
+            if (command.Flushed is null)
+            {
+                _backlog.Add(command);
+                continue;
+            }
+            Interlocked.Decrement(ref _flushMarkers);
+            if (_backlog.Count == 0) command.Flushed.TrySetResult();
             else _waitingFlushes.Add(command.Flushed);
         }
         Volatile.Write(ref _backlogCount, _backlog.Count);

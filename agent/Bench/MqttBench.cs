@@ -44,6 +44,8 @@ internal static class MqttBench
                 await g.RunAsync(null, duration, warmUp, () => bare.Tally.Count, _ => { }, ct);
                 await DrainAsync(g, bare.Tally, ct);
                 baseline = PerSecond(g, bare.Tally);
+                if (bare.Tally.Count < g.Published)
+                    progress.WriteLine($"bench: warning: the bare subscriber got {bare.Tally.Count:N0} of {g.Published:N0}; its rate is no fair baseline, repeat the run");
             }
 
             progress.WriteLine($"bench: agent, {o.Seconds:0.#} s " + (o.Rate is { } r ? $"at {r:0} updates/s" : "flat out"));
@@ -97,6 +99,9 @@ internal static class MqttBench
                 await reporting.CancelAsync();
                 await report;
                 var processed = PerSecond(gen, tally);
+                // The agent does more than the bare subscriber with the same client library; well ahead of it, the baseline run was disturbed.
+                if (baseline is > 0 && processed > 1.2 * baseline)
+                    progress.WriteLine($"bench: warning: the agent ran {processed / baseline:0.0} times the bare subscriber's rate; the baseline run was disturbed (other load?), repeat the run");
                 var counters = plant.Counters();
                 progress.WriteLine($"bench: agent ingest counters: received {counters.Received}, accepted {counters.Accepted}, rejected {counters.Rejected}, unknown topic {counters.UnknownTopic}, late {counters.Late}, reconnects {counters.Reconnects}");
                 var heapAfter = GC.GetTotalMemory(forceFullCollection: true);

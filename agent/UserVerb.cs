@@ -31,9 +31,18 @@ public static class UserVerb
             stderr.WriteLine("loopwatch: the password must have at least 8 characters");
             return 2;
         }
-        using var db = LoopWatchDatabase.Open(new StorageOptions { DatabasePath = Path.Combine(dataDir, AgentStorage.FileName) });
-        var store = new UserStore(db);
-        var added = await store.AddAsync(new UserRow(name, role!, Passwords.Hash(name, password), TimeProvider.System.GetUtcNow().ToUnixTimeMilliseconds()));
+        bool added;
+        try
+        {
+            using var db = LoopWatchDatabase.Open(new StorageOptions { DatabasePath = Path.Combine(dataDir, AgentStorage.FileName) });
+            added = await new UserStore(db).AddAsync(new UserRow(name, role!, Passwords.Hash(name, password), TimeProvider.System.GetUtcNow().ToUnixTimeMilliseconds()));
+        }
+        catch (Exception e) when (e is IOException or UnauthorizedAccessException or Microsoft.Data.Sqlite.SqliteException)
+        {
+            // A read-only, locked or missing database is the operator's to fix; say so instead of a stack trace.
+            stderr.WriteLine($"loopwatch: could not add user '{name}': {e.Message}");
+            return 1;
+        }
         if (!added)
         {
             stderr.WriteLine($"loopwatch: user '{name}' exists already");

@@ -63,6 +63,6 @@ internal static partial class MigrationRunner
                     nameof(migrations));
     }
 
-    [LoggerMessage(EventId = 2101, Level = LogLevel.Information, Message = "Applied schema migration {Version} ({Name}) to {Path}")]
+    [LoggerMessage(EventId = 5110, Level = LogLevel.Information, Message = "Applied schema migration {Version} ({Name}) to {Path}")]
     private static partial void LogApplied(ILogger logger, int version, string name, string path);
 }

@@ -97,6 +97,34 @@ public sealed class StorageFaultTests(ITestOutputHelper output)
         Assert.Contains($"loopwatch: could not start: database '{db}' cannot be opened", stderr);
         Assert.Contains("make the file and its folder writable", stderr);
         Assert.DoesNotContain("Unhandled exception", stderr);
+
+        // Adding a dashboard user to the same read-only database fails the same way: exit 1 and the reason.
+        var userErr = new StringWriter();
+        Assert.Equal(1, await Cli.RunAsync(["user", "add", "mo", "--role", "operator", "--data-dir", data], new StringWriter(), userErr,
+            stdin: new StringReader("long enough pw\n")));
+        Assert.StartsWith("loopwatch: could not add user 'mo': ", userErr.ToString());
+    }
+
+    [Fact]
+    public async Task User_add_on_a_read_only_database_file_exits_1_and_says_why()
+    {
+        var dir = Directory.CreateTempSubdirectory("lw-readonly-user-").FullName;
+        var ok = new StringWriter();
+        Assert.Equal(0, await Cli.RunAsync(["user", "add", "ann", "--role", "operator", "--data-dir", dir], ok, new StringWriter(),
+            stdin: new StringReader("long enough pw\n")));
+        SqliteConnection.ClearAllPools();
+        var db = Path.Combine(dir, "loopwatch.db");
+        using (ImmutableFiles.Set(db))
+        {
+            var err = new StringWriter();
+            Assert.Equal(1, await Cli.RunAsync(["user", "add", "mo", "--role", "operator", "--data-dir", dir], new StringWriter(), err,
+                stdin: new StringReader("long enough pw\n")));
+            // SQLite docs, "Result and Error Codes": SQLITE_READONLY, "attempt to write a readonly database".
+            Assert.Contains("readonly database", err.ToString());
+            SqliteConnection.ClearAllPools();
+        }
+        await using var raw = new SqliteConnection($"Data Source={db}");
+        Assert.Equal(1, raw.ExecuteScalar<long>("SELECT count(*) FROM users"));
     }
 
     private async Task RunFaultAsync(string dataDir, Func<Action> fault, bool readOnly = false, bool faultBeforeStart = false, long journalBefore = 0)

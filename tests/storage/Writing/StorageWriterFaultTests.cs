@@ -60,10 +60,10 @@ public sealed class StorageWriterFaultTests : IDisposable
         using var raw = _temp.OpenRaw();
         Assert.Equal(150, raw.ExecuteScalar<long>("SELECT count(*) FROM alarm_journal WHERE loop_id = 'FIC-120'"));
         Assert.Equal("ok", raw.ExecuteScalar<string>("PRAGMA integrity_check"));
-        // One error when the fault starts (2001), quieter retries (2002), one note on recovery (2003).
-        Assert.Equal(1, log.Entries.Count(e => e.EventId == 2001 && e.Level == LogLevel.Error));
-        Assert.Contains(log.Entries, e => e.EventId == 2002);
-        Assert.Equal(1, log.Entries.Count(e => e.EventId == 2003));
+        // One error when the fault starts (5011), quieter retries (5012), one note on recovery (5013).
+        Assert.Equal(1, log.Entries.Count(e => e.EventId == 5011 && e.Level == LogLevel.Error));
+        Assert.Contains(log.Entries, e => e.EventId == 5012);
+        Assert.Equal(1, log.Entries.Count(e => e.EventId == 5013));
     }
 
     [Fact]
@@ -88,7 +88,7 @@ public sealed class StorageWriterFaultTests : IDisposable
         await disposing;
         Assert.Equal(20, writer.Counters.Dropped);
         Assert.Equal(0, writer.Counters.Written);
-        Assert.Contains(log.Entries, e => e.EventId == 2005 && e.Message.Contains("20"));
+        Assert.Contains(log.Entries, e => e.EventId == 5015 && e.Message.Contains("20"));
         locker.Execute("ROLLBACK");
     }
 

@@ -17,7 +17,8 @@ public static class Cli
           loopwatch check --config FILE                                   check a configuration and exit
           loopwatch analyze --config FILE [--format text|json|csv|html] [--out FILE] [--from T] [--to T] [--strict] FILE...
                                                                           historian CSV files through the same analytics
-          loopwatch discover --broker HOST:PORT [--seconds 30] [--out FILE]   listen and propose a configuration to review
+          loopwatch discover [--broker HOST:PORT] [--config FILE] [--seconds 30] [--out FILE]
+                                                                          listen and propose a configuration to review
           loopwatch user add NAME --role viewer|operator|maintenance|admin [--data-dir DIR]   add a dashboard user
           loopwatch report weekly --db FILE [--db FILE...] [--week YYYY-MM-DD] [--config FILE] [--format text|csv]
                                                                           plant-wide weekly figures from one or more agents' databases

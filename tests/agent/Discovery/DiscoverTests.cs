@@ -6,6 +6,8 @@ using LoopWatch.Agent.Tests.Infrastructure;
 
 namespace LoopWatch.Agent.Tests.Discovery;
 
+// Discover reads LOOPWATCH__BROKER__ variables like the agent, so it runs apart from tests that set them.
+[Collection(EnvironmentCollection.Name)]
 public sealed class DiscoverTests
 {
     private static readonly JsonDocumentOptions Commented = new() { CommentHandling = JsonCommentHandling.Skip };
@@ -102,10 +104,81 @@ public sealed class DiscoverTests
     public void TagName_refuses_names_without_a_loop_part(string tag) => Assert.False(TagName.TryParse(tag, out _));
 
     [Fact]
+    public async Task Discover_reaches_a_TLS_broker_with_the_site_CA_from_the_configuration_file_and_refuses_it_without()
+    {
+        using var pki = TestPki.Create("Quillmoor Works site CA");
+        using var other = TestPki.Create("Quillmoor Works retired CA");
+        await using var broker = await Mosquitto.StartTlsAsync(pki, pki.IssueServer("Quillmoor broker"));
+        foreach (var (topic, value) in new[] { ("quillmoor/FIC-150/pv", "12.5"), ("quillmoor/FIC-150/sp", "12"), ("quillmoor/FIC-150/op", "47") })
+            await broker.PublishAsync(topic, value, qos: 1, retain: true);
+        var dir = Directory.CreateTempSubdirectory("lw-discover-tls-").FullName;
+        string Config(string name, string? ca)
+        {
+            var file = Path.Combine(dir, name);
+            File.WriteAllText(file, $$"""
+                { "LoopWatch": { "Broker": { "Host": "127.0.0.1", "Port": {{broker.Port}}, "UseTls": true{{(ca is null ? "" : $", \"CaFile\": {JsonSerializer.Serialize(ca)}")}} } } }
+                """);
+            return file;
+        }
+
+        var stdout = new StringWriter();
+        var err = new StringWriter();
+        Assert.True(await Cli.RunAsync(["discover", "--config", Config("site.json", pki.CaFile), "--seconds", "1.5"], stdout, err) == 0, err.ToString());
+        Assert.Contains("over TLS", err.ToString());
+        using (var doc = JsonDocument.Parse(stdout.ToString(), Commented))
+            Assert.Equal("quillmoor/FIC-150/pv", doc.RootElement.GetProperty("LoopWatch").GetProperty("Loops")[0].GetProperty("Pv").GetProperty("Tag").GetString());
+
+        // Another CA's file: the broker's certificate does not chain to it, so discover stops and says why.
+        var refused = new StringWriter();
+        Assert.Equal(1, await Cli.RunAsync(["discover", "--config", Config("retired.json", other.CaFile), "--seconds", "1"], new StringWriter(), refused));
+        Assert.Contains("not trusted", refused.ToString());
+        // Plain MQTT to a TLS listener gets no MQTT answer.
+        Assert.Equal(1, await Cli.RunAsync(["discover", "--broker", $"127.0.0.1:{broker.Port}", "--seconds", "1"], new StringWriter(), new StringWriter()));
+    }
+
+    [Fact]
+    public async Task Discover_takes_broker_credentials_from_the_environment_and_without_them_is_refused()
+    {
+        var password = $"pw-{Guid.NewGuid():N}";
+        var port = FreePort.Next();
+        // The embedded broker of a running agent requires these credentials and carries the agent's retained health topics.
+        await using var agent = await RunningAgent.StartAsync([TestLoops.Pid("FIC-151")], embedded: true, brokerPort: port,
+            tweak: o => { o.Broker.Username = "quillmoor-survey"; o.Broker.Password = password; });
+        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+
+        var denied = new StringWriter();
+        Assert.Equal(1, await Cli.RunAsync(["discover", "--broker", $"127.0.0.1:{port}", "--seconds", "1"], new StringWriter(), denied));
+        Assert.Contains("unreachable", denied.ToString());
+
+        Environment.SetEnvironmentVariable("LOOPWATCH__BROKER__USERNAME", "quillmoor-survey");
+        Environment.SetEnvironmentVariable("LOOPWATCH__BROKER__PASSWORD", password);
+        var err = new StringWriter();
+        int code;
+        try
+        {
+            code = await Cli.RunAsync(["discover", "--broker", $"127.0.0.1:{port}", "--seconds", "1.5"], new StringWriter(), err);
+        }
+        finally
+        {
+            Environment.SetEnvironmentVariable("LOOPWATCH__BROKER__PASSWORD", null);
+            Environment.SetEnvironmentVariable("LOOPWATCH__BROKER__USERNAME", null);
+        }
+        Assert.True(code == 0, err.ToString());
+        Assert.Contains($"listening to 127.0.0.1:{port} for", err.ToString());
+        Assert.DoesNotContain(password, err.ToString() + denied);
+    }
+
+    [Fact]
     public async Task Discover_without_a_broker_option_exits_2()
     {
         var err = new StringWriter();
         Assert.Equal(2, await Cli.RunAsync(["discover", "--seconds", "1"], new StringWriter(), err));
         Assert.Contains("--broker: is required", err.ToString());
+        var tls = new StringWriter();
+        // A client certificate without its key is a usage error, named by key, as for the agent.
+        var file = Path.Combine(Directory.CreateTempSubdirectory("lw-discover-cfg-").FullName, "bad.json");
+        await File.WriteAllTextAsync(file, """{ "LoopWatch": { "Broker": { "UseTls": true, "CertFile": "/nonexistent/client.pem" } } }""");
+        Assert.Equal(2, await Cli.RunAsync(["discover", "--config", file, "--seconds", "1"], new StringWriter(), tls));
+        Assert.Contains("Broker:", tls.ToString());
     }
 }

@@ -34,8 +34,14 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
             tap?.Invoke(e.ApplicationMessage, reason);
             return Task.CompletedTask;
         };
-        // Loops added or removed by a configuration reload: the live session follows (a reconnect subscribes to plant.Topics anyway).
-        Action<IReadOnlyList<string>, IReadOnlyList<string>> follow = (added, removed) => _ = FollowAsync(factory, client, added, removed);
+        // Loops added, changed or removed by a configuration reload: Sparkplug metrics go to their new routes, and the live
+        // session follows the plain topics and edge nodes (a reconnect subscribes to plant.Topics and the filters anyway).
+        Action<IReadOnlyList<string>, IReadOnlyList<string>> follow = (added, removed) =>
+        {
+            var nodes = sparkplug.Reroute(plant.Routes);
+            _ = FollowAsync(factory, client, [.. added.Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)), .. nodes.Added],
+                [.. removed.Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)), .. nodes.Dropped]);
+        };
         plant.TopicsChanged += follow;
         client.DisconnectedAsync += e =>
         {
@@ -118,9 +124,8 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
         if (!client.IsConnected) return;
         try
         {
-            // Sparkplug tags are read through their edge node's subscription, never subscribed as topics.
-            await SubscribeAsync(factory, client, added.Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)), CancellationToken.None);
-            foreach (var chunk in removed.Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)).Chunk(500))
+            if (added.Count > 0) await SubscribeAsync(factory, client, added, CancellationToken.None);
+            foreach (var chunk in removed.Chunk(500))
             {
                 var unsubscribe = factory.CreateUnsubscribeOptionsBuilder();
                 foreach (var topic in chunk) unsubscribe.WithTopicFilter(topic);

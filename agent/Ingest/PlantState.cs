@@ -47,7 +47,7 @@ public sealed class PlantState : IPlantView
         _routes = RoutesOf(_cells, null);
     }
 
-    /// <summary>Raised after <see cref="Reconfigure"/> with the topics to subscribe to and those to drop.</summary>
+    /// <summary>Raised after every <see cref="Reconfigure"/> with the tags that came and went (either list may be empty).</summary>
     public event Action<IReadOnlyList<string>, IReadOnlyList<string>>? TopicsChanged;
 
     /// <summary>
@@ -68,7 +68,8 @@ public sealed class PlantState : IPlantView
             Volatile.Write(ref _cells, cells);
             var added = routes.Keys.Except(oldTopics).ToList();
             var dropped = oldTopics.Except(routes.Keys).ToList();
-            if (added.Count > 0 || dropped.Count > 0) TopicsChanged?.Invoke(added, dropped);
+            // Raised even when no topic changed: a changed loop keeps its tags but gets new routes, which Sparkplug must take.
+            TopicsChanged?.Invoke(added, dropped);
         }
     }
 

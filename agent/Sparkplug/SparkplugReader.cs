@@ -33,16 +33,41 @@ public sealed class SparkplugReader
         _options = options;
         _time = time;
         _log = log;
-        foreach (var route in plant.Routes.Values)
-        {
-            if (!SparkplugTag.TryParse(route.Tag, out var tag, out _)) continue;
-            Node(tag.Group, tag.EdgeNode).Device(tag.Device).Routes[tag.Metric] = route;
-        }
-        Filters = _nodes.Values.Select(n => SparkplugTopic.EdgeNodeFilter(n.Group, n.EdgeNode)).ToArray();
+        Reroute(plant.Routes);
     }
 
     /// <summary>The subscriptions that cover every edge node a loop tag names (4.1 "Topic Namespace Elements").</summary>
-    public IReadOnlyList<string> Filters { get; }
+    public IReadOnlyList<string> Filters
+    {
+        get { lock (_gate) return _nodes.Values.Select(n => SparkplugTopic.EdgeNodeFilter(n.Group, n.EdgeNode)).ToArray(); }
+    }
+
+    /// <summary>
+    /// Takes the loop tags of a reloaded configuration: each metric feeds its new route at once; an edge node no loop
+    /// names any more is dropped. A node that stays keeps its session (birth, aliases, sequence), so a metric newly
+    /// named on a born node is read from its next data message. Returns the edge-node subscriptions to add and to drop.
+    /// </summary>
+    public (IReadOnlyList<string> Added, IReadOnlyList<string> Dropped) Reroute(IReadOnlyDictionary<string, TagRoute> routes)
+    {
+        lock (_gate)
+        {
+            var before = _nodes.Keys.ToHashSet();
+            foreach (var node in _nodes.Values)
+                foreach (var device in node.Devices.Values) device.Routes.Clear();
+            var named = new HashSet<(string, string)>();
+            foreach (var route in routes.Values)
+            {
+                if (!SparkplugTag.TryParse(route.Tag, out var tag, out _)) continue;
+                Node(tag.Group, tag.EdgeNode).Device(tag.Device).Routes[tag.Metric] = route;
+                named.Add((tag.Group, tag.EdgeNode));
+            }
+            foreach (var key in _nodes.Keys.Where(k => !named.Contains(k)).ToList()) _nodes.Remove(key);
+            return (Filter(_nodes.Keys.Where(k => !before.Contains(k))), Filter(before.Where(k => !named.Contains(k))));
+        }
+
+        static string[] Filter(IEnumerable<(string Group, string EdgeNode)> nodes) =>
+            nodes.Select(n => SparkplugTopic.EdgeNodeFilter(n.Group, n.EdgeNode)).ToArray();
+    }
 
     /// <summary>The NCMD topics of rebirth requests waiting to be published (only ever written with the option on).</summary>
     public ChannelReader<string> RebirthRequests => _rebirths.Reader;

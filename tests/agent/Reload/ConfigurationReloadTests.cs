@@ -165,4 +165,59 @@ public sealed class ConfigurationReloadTests
         await Eventually.Until(() => rig.SamplesAsync("FIC-994"), n => n >= 3, what: "FIC-994 still fed");
         Assert.DoesNotContain(rig.Logs.Lines, l => l.EventId == 4710);
     }
+
+    private static LoopOptions Sparkplug(string id, string node, string? device)
+    {
+        var prefix = device is null ? $"spBv1.0/Quillmoor/{node}:{id}/" : $"spBv1.0/Quillmoor/{node}/{device}:{id}/";
+        var o = Kept(id);
+        o.Pv = new SignalOptions { Tag = prefix + "PV", Min = 0, Max = 200 };
+        o.Sp = new SignalOptions { Tag = prefix + "SP" };
+        o.Op = new SignalOptions { Tag = prefix + "OP" };
+        return o;
+    }
+
+    private static double Pv(JsonElement? loop) =>
+        loop is { } l && l.GetProperty("pv").ValueKind == JsonValueKind.Number ? l.GetProperty("pv").GetDouble() : double.NaN;
+
+    [Fact]
+    public async Task Sparkplug_loops_changed_added_on_a_born_node_or_on_a_new_edge_node_are_fed_without_a_restart()
+    {
+        var fic501 = Sparkplug("FIC-501", "Intake", "Skid1");
+        await using var rig = await Rig.StartAsync(fic501);
+        // Event time near the wall clock, like a live edge node.
+        await using var intake = await SparkplugEdge.ConnectAsync(rig.Broker.Port, "Quillmoor", "Intake");
+        intake.Time = DateTimeOffset.UtcNow;
+        await intake.NodeBirthAsync();
+        // The device's birth names a metric no loop uses yet (FIC-502): its alias is known from here on.
+        await intake.DeviceBirthAsync("Skid1", SparkplugEdge.Double("FIC-501/PV", 100, 11), SparkplugEdge.Double("FIC-501/SP", 110, 12),
+            SparkplugEdge.Double("FIC-501/OP", 50, 13), SparkplugEdge.Double("FIC-502/PV", 20, 21), SparkplugEdge.Double("FIC-502/SP", 22, 22),
+            SparkplugEdge.Double("FIC-502/OP", 30, 23));
+        await Eventually.Until(() => rig.Agent.LoopAsync("FIC-501"), l => Pv(l) == 100, what: "FIC-501 from its birth");
+
+        // FIC-501 changed (a fresh cell), FIC-502 added on the born device, PIC-601 on an edge node not followed so far.
+        var changed = Sparkplug("FIC-501", "Intake", "Skid1");
+        changed.Description = "Raw water to clarifier 1";
+        await rig.RewriteAsync(changed, Sparkplug("FIC-502", "Intake", "Skid1"), Sparkplug("PIC-601", "Outfall", null));
+        await Eventually.Until(() => rig.IdsAsync(), ids => ids.Contains("PIC-601"), what: "reload applied");
+        Assert.True(double.IsNaN(Pv(await rig.Agent.LoopAsync("FIC-501")))); // the changed loop starts afresh
+
+        // Data by alias only (Sparkplug 3.0, 6.4.5 "Metric", from memory): the session from before the reload still holds.
+        intake.Time = intake.Time.AddSeconds(1);
+        await intake.DeviceDataAsync("Skid1", SparkplugEdge.Alias(11, 104.5), SparkplugEdge.Alias(21, 24.5));
+        await Eventually.Until(() => rig.Agent.LoopAsync("FIC-501"), l => Pv(l) == 104.5, what: "the changed FIC-501 fed by alias");
+        await Eventually.Until(() => rig.Agent.LoopAsync("FIC-502"), l => Pv(l) == 24.5, what: "the added FIC-502 fed by alias");
+
+        // The new edge node is subscribed on the live session: its birth reaches PIC-601.
+        await using var outfall = await SparkplugEdge.ConnectAsync(rig.Broker.Port, "Quillmoor", "Outfall");
+        outfall.Time = DateTimeOffset.UtcNow;
+        await outfall.NodeBirthAsync(SparkplugEdge.Double("PIC-601/PV", 3.5, 1), SparkplugEdge.Double("PIC-601/SP", 3.6, 2), SparkplugEdge.Double("PIC-601/OP", 41, 3));
+        await Eventually.Until(() => rig.Agent.LoopAsync("PIC-601"), l => Pv(l) == 3.5, what: "PIC-601 from the new edge node's birth");
+
+        // Every Intake loop removed: the agent stops following that node.
+        await rig.RewriteAsync(Sparkplug("PIC-601", "Outfall", null));
+        await Eventually.Until(() => rig.IdsAsync(), ids => ids.SequenceEqual(["PIC-601"]), what: "Intake loops removed");
+        var nodes = (await rig.Agent.Http.GetFromJsonAsync<JsonElement>("/api/sparkplug")).GetProperty("nodes").EnumerateArray()
+            .Select(n => n.GetProperty("edge_node").GetString()!).ToArray();
+        Assert.Equal(["Outfall"], nodes);
+    }
 }

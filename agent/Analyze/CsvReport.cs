@@ -3,7 +3,7 @@ using nietras.SeparatedValues;
 
 namespace LoopWatch.Agent.Analyze;
 
-/// <summary>One CSV row per loop with its whole-span statistics and finding kinds; empty cells where a figure does not apply.</summary>
+/// <summary>One CSV row per loop with its whole-span statistics, finding kinds and advice headlines; empty cells where a figure does not apply.</summary>
 public static class CsvReport
 {
     /// <summary>Writes the report to <paramref name="output"/>.</summary>
@@ -33,6 +33,8 @@ public static class CsvReport
             row["cycle_period_s"].Set(N(s.CyclePeriodS));
             row["duty_pct"].Set(N(s.DutyPct));
             row["cycle_amplitude_pct"].Set(N(s.CycleAmplitudePct));
+            // One line per adviser that shows figures; the working is in the text, HTML and JSON reports.
+            row["advice"].Set(string.Join(" | ", l.WindowStats.Advice?.All().Where(a => a.Shown).Select(a => a.Headline) ?? []));
         }
     }
 

@@ -15,12 +15,12 @@ public static class HtmlReport
         body{font:14px/1.4 system-ui,sans-serif;color:#1f1f1f;margin:24px auto;max-width:1000px;padding:0 12px}
         h1{font-size:22px;margin:0 0 4px}h2{font-size:17px;margin:0 0 4px}
         table{border-collapse:collapse;width:100%;margin:8px 0}th,td{border-bottom:1px solid #d8d8d4;padding:3px 6px;text-align:left;vertical-align:top}
-        th{background:#f0f0ec}td.n{text-align:right;font-variant-numeric:tabular-nums}
+        th{background:#f0f0ec}td.n,th.n{text-align:right;font-variant-numeric:tabular-nums}
         .caution{border:1px solid #8a6d00;background:#fff8e0;padding:8px 12px;margin:12px 0}
         .loop{border-top:2px solid #1f1f1f;padding-top:10px;margin-top:22px;break-inside:avoid;page-break-inside:avoid}
         .state-active{font-weight:700}.meta{color:#555}
         svg.trend{width:100%;height:auto;font-size:11px;fill:#1f1f1f}
-        ul.findings{margin:6px 0;padding-left:20px}
+        ul.findings{margin:6px 0;padding-left:20px}h3{font-size:15px;margin:10px 0 4px}.advice{margin:6px 0 10px}.advice ol{margin:4px 0;padding-left:22px}
         @page{size:A4;margin:14mm}
         @media print{body{margin:0;max-width:none;font-size:11px}.loop{break-inside:avoid}a{color:inherit;text-decoration:none}}
         """;
@@ -106,8 +106,39 @@ public static class HtmlReport
                 sb.Append(ci, $"<li><strong>{E(f.Kind)}</strong> {E(ReportOrder.Time(f.Start))} to {E(f.End is null ? "end of data (still active)" : ReportOrder.Time(f.End))}: {E(f.Diagnosis)}</li>");
             sb.Append("</ul>");
         }
+        Advice(sb, l);
         sb.Append("</section>");
     }
+
+    // As on the dashboard's loop page: each adviser's working as a numbered list, the what-if table, and the caution.
+    private static void Advice(StringBuilder sb, LoopResult l)
+    {
+        if (l.WindowStats.Advice is not { } advice || !advice.All().Any()) return;
+        var ci = CultureInfo.InvariantCulture;
+        sb.Append("<h3>Advice at the end of the data</h3>");
+        foreach (var a in advice.All())
+        {
+            sb.Append(ci, $"<div class=\"advice\" data-adviser=\"{E(a.Adviser)}\"><p><strong>{E(a.Title)}.</strong> ");
+            if (!a.Shown)
+            {
+                sb.Append(ci, $"Not shown: {E(a.NotShownBecause ?? "")}</p></div>");
+                continue;
+            }
+            sb.Append(E(a.Headline)).Append("</p><ol>");
+            foreach (var line in a.Explanation) sb.Append("<li>").Append(E(line)).Append("</li>");
+            sb.Append("</ol>");
+            if (a is LoopWatch.Analytics.ProportionalBand.ProportionalBandAdvice { Rows: { } rows })
+            {
+                sb.Append("<table><thead><tr><th class=\"n\">PB %</th><th class=\"n\">Kc</th><th class=\"n\">offset, % of span</th><th class=\"n\">gain margin</th><th></th></tr></thead><tbody>");
+                foreach (var r in rows)
+                    sb.Append(ci, $"<tr><td class=\"n\">{T(r.PbPct)}</td><td class=\"n\">{T(r.Kc)}</td><td class=\"n\">{T(r.OffsetPct)}</td><td class=\"n\">{(r.GainMargin is { } m ? T(m) : "-")}</td><td>{(r.Current ? "now" : r.Oscillates ? "would oscillate" : "")}</td></tr>");
+                sb.Append("</tbody></table>");
+            }
+            sb.Append("<p class=\"meta\">").Append(E(a.Caution)).Append("</p></div>");
+        }
+    }
+
+    private static string T(double v) => LoopWatch.Analytics.Advice.Rounding.Text(v);
 
     private static void Rejected(StringBuilder sb, AnalysisResult result)
     {

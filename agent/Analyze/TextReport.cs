@@ -29,6 +29,7 @@ public static class TextReport
             foreach (var a in result.AlarmsOf(l.Spec.Id))
                 o.WriteLine(string.Create(ci, $"  alarm {l.Spec.Id}:{a.Kind} ({a.Priority.ToString().ToLowerInvariant()}): annunciated {a.Activations} time(s), {a.StateAtEnd} at the end"));
             foreach (var f in l.Findings) o.WriteLine(string.Create(ci, $"  - {f.Kind} {ReportOrder.Time(f.Start)} to {(f.End is null ? "end (still active)" : ReportOrder.Time(f.End))}: {f.Diagnosis}"));
+            Advice(l, o);
             o.WriteLine();
         }
         var r = result.Rejects;
@@ -38,6 +39,23 @@ public static class TextReport
         foreach (var e in r.FileErrors) o.WriteLine(string.Create(ci, $"  file: {e}"));
         o.WriteLine();
         o.WriteLine(ReportOrder.Caution);
+    }
+
+    // The advisers at the end of the data, each with its working so the figures can be redone by hand.
+    private static void Advice(LoopResult l, TextWriter o)
+    {
+        if (l.WindowStats.Advice is not { } advice) return;
+        foreach (var a in advice.All())
+        {
+            if (!a.Shown)
+            {
+                o.WriteLine($"  advice, {a.Title}: not shown: {a.NotShownBecause}");
+                continue;
+            }
+            o.WriteLine($"  advice, {a.Title}: {a.Headline}");
+            for (var i = 0; i < a.Explanation.Count; i++) o.WriteLine($"      {i + 1}. {a.Explanation[i]}");
+            o.WriteLine($"      {a.Caution}");
+        }
     }
 
     private static string F(double? v) => v is { } x ? x.ToString("0.##", CultureInfo.InvariantCulture) : "-";

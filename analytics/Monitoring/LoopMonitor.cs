@@ -23,6 +23,8 @@ public sealed class LoopMonitor
     private byte _seen;
     private bool _slotEmitted;
     private long _lastUpdateTicks;
+    // Event time of each tag's held value, so an older value of the same interval (reordered or sent again) never replaces a newer one.
+    private long _pvTicks, _spTicks, _opTicks, _modeTicks, _positionTicks;
     private long _samples, _bad, _late;
     private byte _lost;
 
@@ -50,13 +52,16 @@ public sealed class LoopMonitor
     public bool IsStale => Board.IsActive(FindingKinds.Stale);
 
     /// <summary>
-    /// Takes one tag value at event time <paramref name="ticks"/> (UTC). Values older than the current sampling interval
-    /// are counted as late and dropped; a later value in the same interval replaces the held one.
+    /// Takes one tag value at event time <paramref name="ticks"/> (UTC). Values older than the current sampling interval,
+    /// or older than the tag's held value, are counted as late and dropped; a later value in the same interval replaces
+    /// the held one.
     /// </summary>
     public void Update(Signal signal, long ticks, double value, SampleQuality quality = SampleQuality.Good)
     {
         var slot = ticks / _periodTicks;
-        if (slot < _slot) { _late++; return; }
+        ref var held = ref HeldTicks(signal);
+        if (slot < _slot || ticks < held) { _late++; return; }
+        held = ticks;
         if (slot > _slot)
         {
             if (_slot != long.MinValue && !_slotEmitted && _seen != 0) Emit();
@@ -121,6 +126,18 @@ public sealed class LoopMonitor
     {
         // Sample-and-hold across short gaps (a tag that skipped an interval) keeps the detectors' sample clock regular.
         for (var s = _slot + 1; s < nextSlot; s++) Step(s * _periodTicks);
+    }
+
+    private ref long HeldTicks(Signal signal)
+    {
+        switch (signal)
+        {
+            case Signal.Pv: return ref _pvTicks;
+            case Signal.Sp: return ref _spTicks;
+            case Signal.Op: return ref _opTicks;
+            case Signal.Mode: return ref _modeTicks;
+            default: return ref _positionTicks;
+        }
     }
 
     private void Hold(Signal signal, double value, SampleQuality quality)

@@ -27,6 +27,7 @@ public static class DashboardSetup
         ShiftSchedule? shifts = null)
     {
         services.AddSingleton(access);
+        services.TryAddSingleton(WeeklySources.OwnOnly);
         if (shifts is not null) services.AddSingleton(shifts);
         else services.TryAddSingleton(ShiftSchedule.Default);
         // The login page needs the users table; a host that registers its own store keeps it.

@@ -17,14 +17,14 @@ public sealed class LoopWatchDatabase : IDisposable
     private readonly string _writerConnectionString;
     private readonly string _connectionPragmas;
 
-    private LoopWatchDatabase(StorageOptions options, string fullPath)
+    private LoopWatchDatabase(StorageOptions options, string fullPath, bool readOnly = false)
     {
         Options = options;
         Path = fullPath;
         _connectionString = new SqliteConnectionStringBuilder
         {
             DataSource = fullPath,
-            Mode = SqliteOpenMode.ReadWriteCreate,
+            Mode = readOnly ? SqliteOpenMode.ReadOnly : SqliteOpenMode.ReadWriteCreate,
             Cache = SqliteCacheMode.Private,
             Pooling = true,
             ForeignKeys = true,
@@ -82,6 +82,43 @@ public sealed class LoopWatchDatabase : IDisposable
         {
             database.Dispose();
             throw new IOException(OpenFailure(fullPath, e), e);
+        }
+        catch
+        {
+            database.Dispose();
+            throw;
+        }
+        return database;
+    }
+
+    /// <summary>
+    /// Opens another agent's database to read it (a shard of the same plant): never created, migrated or written, so
+    /// the agent that owns it is not disturbed. Its schema must be this build's.
+    /// </summary>
+    /// <exception cref="IOException">The file is missing, cannot be read, or is not a LoopWatch database.</exception>
+    /// <exception cref="StorageSchemaException">The file was written by a newer schema than this build knows.</exception>
+    public static LoopWatchDatabase OpenReadOnly(string path)
+    {
+        var fullPath = System.IO.Path.GetFullPath(path);
+        if (!File.Exists(fullPath)) throw new IOException($"database '{fullPath}' not found");
+        var database = new LoopWatchDatabase(new StorageOptions { DatabasePath = fullPath }, fullPath, readOnly: true);
+        try
+        {
+            using var connection = database.OpenConnection();
+            var version = connection.ExecuteScalar<int>("PRAGMA user_version");
+            var latest = SchemaMigrations.All[^1].Version;
+            if (version == 0) throw new IOException($"database '{fullPath}' is not a LoopWatch database (no schema version)");
+            if (version > latest)
+                throw new StorageSchemaException($"Database '{fullPath}' has schema version {version}, newer than version {latest} known to this LoopWatch build.");
+            // An older file is migrated by its own agent when it starts; read-only, this build cannot read it reliably.
+            if (version < latest)
+                throw new StorageSchemaException($"Database '{fullPath}' has schema version {version}, older than version {latest}; upgrade the agent that writes it first.");
+            database.SchemaVersion = version;
+        }
+        catch (SqliteException e)
+        {
+            database.Dispose();
+            throw new IOException($"database '{fullPath}' cannot be read: {e.Message}", e);
         }
         catch
         {

@@ -30,6 +30,14 @@ public static class AgentOptionsCheck
         if (!TimeZoneInfo.TryFindSystemTimeZoneById(d.TimeZone ?? "", out _)) errors.Add($"Dashboard:TimeZone: '{d.TimeZone}' is not a known time zone");
         if (string.IsNullOrWhiteSpace(options.Dashboard.Urls)) errors.Add("Dashboard:Urls: is missing");
         if (d.MetricsAccess is not ("viewing" or "open" or "off")) errors.Add($"Dashboard:MetricsAccess: '{d.MetricsAccess}' is not viewing, open or off");
+        var own = Path.GetFullPath(Path.Combine(string.IsNullOrWhiteSpace(options.DataDir) ? "." : options.DataDir, Storage.AgentStorage.FileName));
+        for (var i = 0; i < d.WeeklyDatabases.Count; i++)
+        {
+            var file = d.WeeklyDatabases[i];
+            // A missing file is not refused here: the other agent may start later; the page names it until it is there.
+            if (string.IsNullOrWhiteSpace(file)) errors.Add($"Dashboard:WeeklyDatabases:{i}: is empty");
+            else if (Path.GetFullPath(file) == own) errors.Add($"Dashboard:WeeklyDatabases:{i}: '{file}' is this agent's own database");
+        }
         if (string.IsNullOrWhiteSpace(options.DataDir)) errors.Add("DataDir: is missing");
         if (options.Valves.ServiceAfterReversals < 1) errors.Add("Valves:ServiceAfterReversals: must be at least 1");
         if (!(options.Valves.ServiceAfterStrokes > 0)) errors.Add("Valves:ServiceAfterStrokes: must be a positive number");

@@ -22,4 +22,9 @@ public sealed class DashboardOptions
 
     /// <summary>Plant time zone (IANA id) for shifts and weekly summaries; default UTC.</summary>
     public string TimeZone { get; set; } = "UTC";
+
+    /// <summary>
+    /// Database files of the other agents sharing the plant by shard, merged read-only into the weekly page; default none.
+    /// </summary>
+    public List<string> WeeklyDatabases { get; set; } = [];
 }

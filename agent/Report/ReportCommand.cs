@@ -53,7 +53,8 @@ public static class ReportCommand
         var databases = new List<LoopWatchDatabase>();
         try
         {
-            foreach (var db in dbs) databases.Add(LoopWatchDatabase.Open(Path.GetFullPath(db)));
+            // Read-only: a report never creates, migrates or writes the agents' files, which may be in use.
+            foreach (var db in dbs) databases.Add(LoopWatchDatabase.OpenReadOnly(db));
             var summary = await WeeklyRead.SummaryAsync(databases.Select(d => new StorageReader(d)), week, areas, ct);
             if (format == "csv") stdout.Write(WeeklyCsv.Write(summary));
             else WeeklyText.Write(summary, dbs.Count, stdout);

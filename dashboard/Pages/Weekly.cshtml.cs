@@ -2,15 +2,23 @@ using System.Globalization;
 using System.Text;
 using LoopWatch.Dashboard.Model;
 using LoopWatch.Dashboard.Reports;
+using LoopWatch.Storage;
 using LoopWatch.Storage.Reading;
+using LoopWatch.Storage.Schema;
 using Microsoft.AspNetCore.Mvc;
 using Microsoft.AspNetCore.Mvc.RazorPages;
 
 namespace LoopWatch.Dashboard.Pages;
 
 /// <summary>The weekly summary of loop health against the week before, as a page (printable on A4) and as CSV.</summary>
-public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSchedule schedule) : PageModel
+public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSchedule schedule, WeeklySources sources) : PageModel
 {
+    /// <summary>Other agents' databases that could not be read for this page, with the reason.</summary>
+    public List<string> NotIncluded { get; } = [];
+
+    /// <summary>How many databases the figures come from.</summary>
+    public int Databases { get; private set; } = 1;
+
     public WeekOverWeek? Summary { get; private set; }
     public DateTimeOffset Now { get; private set; }
     public bool IsComplete { get; private set; }
@@ -53,6 +61,26 @@ public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSch
         return true;
     }
 
-    private Task<WeeklySummary> SummaryAsync(ReportWeek w, CancellationToken ct) =>
-        WeeklyRead.SummaryAsync([reader], w, plant.Loops().Select(l => KeyValuePair.Create(l.Id, l.Area)).ToList(), ct);
+    // With other shards' databases configured, each is opened read-only for the request; one that cannot be read is
+    // named on the page and left out, so a stopped or moved agent never takes the whole summary down.
+    private async Task<WeeklySummary> SummaryAsync(ReportWeek w, CancellationToken ct)
+    {
+        var areas = sources.Areas.Count > 0 ? sources.Areas : plant.Loops().Select(l => KeyValuePair.Create(l.Id, l.Area)).ToList();
+        var others = new List<LoopWatchDatabase>();
+        NotIncluded.Clear();
+        try
+        {
+            foreach (var path in sources.Databases)
+            {
+                try { others.Add(LoopWatchDatabase.OpenReadOnly(path)); }
+                catch (Exception e) when (e is IOException or StorageSchemaException or UnauthorizedAccessException) { NotIncluded.Add(e.Message); }
+            }
+            Databases = 1 + others.Count;
+            return await WeeklyRead.SummaryAsync([reader, .. others.Select(d => new StorageReader(d))], w, areas, ct);
+        }
+        finally
+        {
+            foreach (var d in others) d.Dispose();
+        }
+    }
 }

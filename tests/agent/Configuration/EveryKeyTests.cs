@@ -42,6 +42,8 @@ public sealed class EveryKeyTests
         { "Dashboard:ShiftHours", "7", "Dashboard:ShiftHours" },
         { "Dashboard:TimeZone", "\"Mars/Olympus\"", "Dashboard:TimeZone" },
         { "Dashboard:MetricsAccess", "\"sometimes\"", "Dashboard:MetricsAccess" },
+        { "Dashboard:WeeklyDatabases", "[\" \"]", "Dashboard:WeeklyDatabases:0" },
+        { "Dashboard:WeeklyDatabases", "[\"other.db\", \"data/loopwatch.db\"]", "Dashboard:WeeklyDatabases:1" }, // this agent's own file (DataDir "data")
         { "DataDir", "\" \"", "DataDir" },
         { "Sparkplug:RequestRebirth", "\"maybe\"", "Sparkplug:RequestRebirth" },
         { "Sparkplug:RebirthMinSeconds", "0.5", "Sparkplug:RebirthMinSeconds" },

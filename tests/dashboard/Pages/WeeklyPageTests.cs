@@ -93,4 +93,62 @@ public sealed class WeeklyPageTests
         Assert.Contains("FIC-990", await csv.Content.ReadAsStringAsync()); // a mid-week date snaps to its Monday
         Assert.Equal(System.Net.HttpStatusCode.BadRequest, (await http.GetAsync("/weekly?week=last-tuesday")).StatusCode);
     }
+
+    [Fact]
+    public async Task With_the_other_shards_databases_the_weekly_page_covers_the_whole_plant_and_names_a_database_it_cannot_read()
+    {
+        // Two loops in one configuration, one per shard of two (the documented FNV-1a hash picks the shard).
+        var ids = new[] { "FIC-990", "PIC-991", "LIC-992", "TIC-993", "FIC-994" };
+        var mine = ids.First(i => Agent.Configuration.ShardOptions.ShardOf(i, 2) == 0);
+        var theirs = ids.First(i => Agent.Configuration.ShardOptions.ShardOf(i, 2) == 1);
+        var north = TestLoops.Pid(mine);
+        north.Area = "North yard";
+        var south = TestLoops.Pid(theirs);
+        south.Area = "South yard";
+        var week = ReportWeek.LastComplete(DateTimeOffset.UtcNow, TimeZoneInfo.Utc).Before();
+        var h0 = week.Start.ToUnixTimeMilliseconds();
+
+        // The other agent's database, written by its own writer and closed, as a stopped or running shard leaves it.
+        var other = Path.Combine(Directory.CreateTempSubdirectory("lw-shard-1-").FullName, "loopwatch.db");
+        using (var db = Storage.LoopWatchDatabase.Open(other))
+        {
+            await using var w = new Storage.Writing.StorageWriter(db);
+            // 10 hours, 4 of them with an offset.
+            for (var h = 0; h < 10; h++)
+                w.Post(new HourlyStatsRow { LoopId = theirs, HourMs = h0 + h * HourMs, Samples = 3600, SecondsOffset = h < 4 ? 600 : 0, SecondsAnyFinding = h < 4 ? 600 : 0 });
+            await w.FlushAsync();
+        }
+        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        var before = await File.ReadAllBytesAsync(other);
+        var missing = Path.Combine(Path.GetTempPath(), $"lw-shard-2-{Guid.NewGuid():N}", "loopwatch.db");
+
+        await using var agent = await RunningAgent.StartAsync([north, south], embedded: true, brokerPort: FreePort.Next(), tweak: o =>
+        {
+            o.Shard = new Agent.Configuration.ShardOptions { Index = 0, Count = 2 };
+            o.Dashboard.WeeklyDatabases = [other, missing];
+        });
+        Assert.Equal([mine], (await agent.LoopsAsync()).EnumerateArray().Select(l => l.GetProperty("id").GetString()!).ToArray());
+        var writer = agent.App.Services.GetRequiredService<AgentStorage>().Writer;
+        // 20 hours, all healthy.
+        for (var h = 0; h < 20; h++) writer.Post(new HourlyStatsRow { LoopId = mine, HourMs = h0 + h * HourMs, Samples = 3600, SecondsAnyFinding = 0 });
+        await PageRig.FlushAsync(agent);
+
+        await using var chromium = await Chromium.LaunchAsync();
+        var page = await chromium.NewPageAsync();
+        await page.GotoAsync(agent.Http.BaseAddress + "weekly?week=" + week.Key);
+        Assert.Contains("merged from 2 agents' databases", await page.Locator("p.quiet").First.InnerTextAsync());
+        var notIncluded = await page.Locator("#not-included").InnerTextAsync();
+        Assert.Contains(missing, notIncluded);
+        Assert.Contains("not found", notIncluded);
+        // Hand count: 30 loop-hours, 26 healthy = 86.7 %; by area 20 of 20 and 6 of 10, the South yard known from the
+        // configuration although this agent does not watch its loop.
+        Assert.Contains("(26 of 30)", await page.Locator("tr[data-figure=healthy]").InnerTextAsync());
+        Assert.Contains("100.0 %", await page.Locator("tr[data-area='North yard']").InnerTextAsync());
+        Assert.Contains("60.0 %", await page.Locator("tr[data-area='South yard']").InnerTextAsync());
+        await Chromium.ShotAsync(page, "weekly-merged");
+
+        // Read-only: the other agent's file is byte for byte as it was.
+        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        Assert.Equal(before, await File.ReadAllBytesAsync(other));
+    }
 }

@@ -68,27 +68,14 @@ public sealed class LoopWatchDatabase : IDisposable
         var folder = System.IO.Path.GetDirectoryName(fullPath);
         if (!string.IsNullOrEmpty(folder)) Directory.CreateDirectory(folder);
 
-        var database = new LoopWatchDatabase(options, fullPath);
-        try
+        return Prepared(new LoopWatchDatabase(options, fullPath), (database, connection) =>
         {
-            using var connection = database.OpenConnection();
             // journal_mode=WAL is stored in the file, so setting it once here is enough (SQLite docs, "Write-Ahead Logging").
             connection.ExecuteScalar<string>("PRAGMA journal_mode = WAL");
             database.AppliedOnOpen = MigrationRunner.Run(
                 connection, fullPath, migrations, time, logger ?? NullLogger.Instance);
             database.SchemaVersion = connection.ExecuteScalar<int>("PRAGMA user_version");
-        }
-        catch (SqliteException e)
-        {
-            database.Dispose();
-            throw new IOException(OpenFailure(fullPath, e), e);
-        }
-        catch
-        {
-            database.Dispose();
-            throw;
-        }
-        return database;
+        }, e => OpenFailure(fullPath, e));
     }
 
     /// <summary>
@@ -96,17 +83,15 @@ public sealed class LoopWatchDatabase : IDisposable
     /// the agent that owns it is not disturbed. Its schema must be this build's.
     /// </summary>
     /// <exception cref="IOException">The file is missing, cannot be read, or is not a LoopWatch database.</exception>
-    /// <exception cref="StorageSchemaException">The file was written by a newer schema than this build knows.</exception>
+    /// <exception cref="StorageSchemaException">The file's schema is newer or older than this build's.</exception>
     public static LoopWatchDatabase OpenReadOnly(string path)
     {
         var fullPath = System.IO.Path.GetFullPath(path);
         if (!File.Exists(fullPath)) throw new IOException($"database '{fullPath}' not found");
-        var database = new LoopWatchDatabase(new StorageOptions { DatabasePath = fullPath }, fullPath, readOnly: true);
-        try
+        return Prepared(new LoopWatchDatabase(new StorageOptions { DatabasePath = fullPath }, fullPath, readOnly: true), (database, connection) =>
         {
-            using var connection = database.OpenConnection();
             var version = connection.ExecuteScalar<int>("PRAGMA user_version");
-            var latest = SchemaMigrations.All[^1].Version;
+            var latest = SchemaMigrations.Latest;
             if (version == 0) throw new IOException($"database '{fullPath}' is not a LoopWatch database (no schema version)");
             if (version > latest)
                 throw new StorageSchemaException($"Database '{fullPath}' has schema version {version}, newer than version {latest} known to this LoopWatch build.");
@@ -114,18 +99,30 @@ public sealed class LoopWatchDatabase : IDisposable
             if (version < latest)
                 throw new StorageSchemaException($"Database '{fullPath}' has schema version {version}, older than version {latest}; upgrade the agent that writes it first.");
             database.SchemaVersion = version;
+        }, e => $"database '{fullPath}' cannot be read: {e.Message}");
+    }
+
+    // Runs the first connection's work on a new database; on any failure the database is disposed, and a SQLite error
+    // becomes an IOException with the caller's words for it.
+    private static LoopWatchDatabase Prepared(LoopWatchDatabase database, Action<LoopWatchDatabase, SqliteConnection> prepare,
+        Func<SqliteException, string> failure)
+    {
+        try
+        {
+            using var connection = database.OpenConnection();
+            prepare(database, connection);
+            return database;
         }
         catch (SqliteException e)
         {
             database.Dispose();
-            throw new IOException($"database '{fullPath}' cannot be read: {e.Message}", e);
+            throw new IOException(failure(e), e);
         }
         catch
         {
             database.Dispose();
             throw;
         }
-        return database;
     }
 
     /// <summary>Opens a new pooled connection with the LoopWatch pragmas set; the caller disposes it.</summary>

@@ -109,8 +109,7 @@ public static class AgentHost
         var d = opts.Dashboard;
         // Other shards' loops are in the same configuration, so their areas are known for the merged weekly page.
         if (d.WeeklyDatabases.Count > 0)
-            services.AddSingleton(new Dashboard.Reports.WeeklySources(d.WeeklyDatabases,
-                opts.Loops.Select(l => KeyValuePair.Create(l.Id ?? "", l.Area ?? "")).ToList()));
+            services.AddSingleton(new Dashboard.Reports.WeeklySources(d.WeeklyDatabases, opts.LoopAreas()));
         services.AddLoopWatchDashboard(new Dashboard.Access.DashboardAccess(d.RequireLoginToView), Path.Combine(Path.GetFullPath(opts.DataDir), "keys"),
             new Dashboard.Reports.ShiftSchedule(d.ShiftStartHour, d.ShiftHours, TimeZoneInfo.FindSystemTimeZoneById(d.TimeZone)));
         configure?.Invoke(services);

@@ -20,4 +20,8 @@ public sealed class AgentOptions
     public SparkplugOptions Sparkplug { get; set; } = new();
 
     public ShardOptions Shard { get; set; } = new();
+
+    /// <summary>Every configured loop's id and area in file order, all shards included (for plant-wide weekly figures).</summary>
+    public IReadOnlyList<KeyValuePair<string, string>> LoopAreas() =>
+        Loops.Select(l => KeyValuePair.Create(l.Id ?? "", l.Area ?? "")).ToList();
 }

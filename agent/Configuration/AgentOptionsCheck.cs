@@ -5,20 +5,26 @@ namespace LoopWatch.Agent.Configuration;
 /// <summary>Checks everything in <see cref="AgentOptions"/>; each message names the key.</summary>
 public static class AgentOptionsCheck
 {
+    /// <summary>The settings any client of the broker needs (the agent, <c>discover</c>): address, credentials and TLS.</summary>
+    public static void ClientSettings(BrokerOptions b, List<string> errors)
+    {
+        if (string.IsNullOrWhiteSpace(b.Host)) errors.Add("Broker:Host: is missing");
+        if (b.Port is < 1 or > 65535) errors.Add($"Broker:Port: {b.Port} is not a TCP port (1-65535)");
+        if (b.Username is null && b.Password is not null) errors.Add("Broker:Username: is missing while Broker:Password is set");
+        errors.AddRange(Broker.BrokerTls.Check(b));
+    }
+
     /// <summary>Returns the specs of the loops this agent takes (its shard); <paramref name="errors"/> lists every problem found.</summary>
     public static IReadOnlyList<LoopSpec> Check(AgentOptions options, List<string> errors)
     {
         var b = options.Broker;
-        if (string.IsNullOrWhiteSpace(b.Host)) errors.Add("Broker:Host: is missing");
-        if (b.Port is < 1 or > 65535) errors.Add($"Broker:Port: {b.Port} is not a TCP port (1-65535)");
+        ClientSettings(b, errors);
         if (string.IsNullOrWhiteSpace(b.ClientId)) errors.Add("Broker:ClientId: is missing");
         if (b.MaxPendingMessagesPerClient < 1) errors.Add("Broker:MaxPendingMessagesPerClient: must be at least 1");
         if (!(b.MaxLeadSeconds >= 0 && double.IsFinite(b.MaxLeadSeconds))) errors.Add($"Broker:MaxLeadSeconds: {b.MaxLeadSeconds} must be zero or more seconds");
         if (!System.Net.IPAddress.TryParse(b.ListenAddress, out var listen)) errors.Add($"Broker:ListenAddress: '{b.ListenAddress}' is not an IP address");
         else if (b.Embedded && !System.Net.IPAddress.IsLoopback(listen) && (string.IsNullOrEmpty(b.Username) || string.IsNullOrEmpty(b.Password)))
             errors.Add($"Broker:ListenAddress: the embedded broker on {listen}, off loopback, needs Broker:Username and Broker:Password");
-        if (b.Username is null && b.Password is not null) errors.Add("Broker:Username: is missing while Broker:Password is set");
-        errors.AddRange(Broker.BrokerTls.Check(b));
         foreach (var url in (options.Dashboard.Urls ?? "").Split(';', StringSplitOptions.RemoveEmptyEntries | StringSplitOptions.TrimEntries))
         {
             if (!Uri.TryCreate(url, UriKind.Absolute, out var uri) || (uri.Scheme != "http" && uri.Scheme != "https"))

@@ -39,11 +39,7 @@ public static class DiscoverCommand
         // The agent's own loading (file, then LOOPWATCH__BROKER__... variables, then --broker), so discover reaches the
         // broker exactly as the agent will; only the Broker section is used.
         var b = errors.Count == 0 ? AgentConfiguration.Load(configFile, overrides, errors).Broker : new BrokerOptions();
-        if (errors.Count == 0)
-        {
-            if (b.Username is null && b.Password is not null) errors.Add("Broker:Username: is missing while Broker:Password is set");
-            errors.AddRange(BrokerTls.Check(b));
-        }
+        if (errors.Count == 0) AgentOptionsCheck.ClientSettings(b, errors);
         if (errors.Count > 0)
         {
             foreach (var e in errors) stderr.WriteLine($"loopwatch: {e}");

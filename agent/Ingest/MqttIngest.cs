@@ -39,8 +39,7 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
         Action<IReadOnlyList<string>, IReadOnlyList<string>> follow = (added, removed) =>
         {
             var nodes = sparkplug.Reroute(plant.Routes);
-            _ = FollowAsync(factory, client, [.. added.Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)), .. nodes.Added],
-                [.. removed.Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)), .. nodes.Dropped]);
+            _ = FollowAsync(factory, client, [.. added, .. nodes.Added], [.. removed, .. nodes.Dropped]);
         };
         plant.TopicsChanged += follow;
         client.DisconnectedAsync += e =>

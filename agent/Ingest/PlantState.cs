@@ -47,7 +47,7 @@ public sealed class PlantState : IPlantView
         _routes = RoutesOf(_cells, null);
     }
 
-    /// <summary>Raised after every <see cref="Reconfigure"/> with the tags that came and went (either list may be empty).</summary>
+    /// <summary>Raised after every <see cref="Reconfigure"/> with the plain topics to subscribe to and to drop (either list may be empty).</summary>
     public event Action<IReadOnlyList<string>, IReadOnlyList<string>>? TopicsChanged;
 
     /// <summary>
@@ -66,8 +66,9 @@ public sealed class PlantState : IPlantView
             Volatile.Write(ref _routes, routes);
             Volatile.Write(ref _byId, cells.ToDictionary(c => c.Spec.Id, StringComparer.Ordinal));
             Volatile.Write(ref _cells, cells);
-            var added = routes.Keys.Except(oldTopics).ToList();
-            var dropped = oldTopics.Except(routes.Keys).ToList();
+            // Plain topics only, as Topics gives them: Sparkplug tags are read through their edge node's subscription.
+            var added = routes.Keys.Except(oldTopics).Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)).ToList();
+            var dropped = oldTopics.Except(routes.Keys).Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)).ToList();
             // Raised even when no topic changed: a changed loop keeps its tags but gets new routes, which Sparkplug must take.
             TopicsChanged?.Invoke(added, dropped);
         }

@@ -48,7 +48,7 @@ public static class ReportCommand
         }
         var zone = TimeZoneInfo.FindSystemTimeZoneById(options.Dashboard.TimeZone);
         var week = day is { } w ? ReportWeek.Containing(w, zone) : ReportWeek.LastComplete(time.GetUtcNow(), zone);
-        var areas = options.Loops.Select(l => KeyValuePair.Create(l.Id ?? "", l.Area ?? "")).ToList();
+        var areas = options.LoopAreas();
 
         var databases = new List<LoopWatchDatabase>();
         try

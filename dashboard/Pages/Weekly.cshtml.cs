@@ -17,7 +17,10 @@ public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSch
     public List<string> NotIncluded { get; } = [];
 
     /// <summary>How many databases the figures come from.</summary>
-    public int Databases { get; private set; } = 1;
+    public int Databases => _readers?.Count ?? 1;
+
+    private List<StorageReader>? _readers;
+    private IReadOnlyList<KeyValuePair<string, string>>? _areas;
 
     public WeekOverWeek? Summary { get; private set; }
     public DateTimeOffset Now { get; private set; }
@@ -61,26 +64,30 @@ public sealed class WeeklyModel(IPlantView plant, StorageReader reader, ShiftSch
         return true;
     }
 
-    // With other shards' databases configured, each is opened read-only for the request; one that cannot be read is
-    // named on the page and left out, so a stopped or moved agent never takes the whole summary down.
-    private async Task<WeeklySummary> SummaryAsync(ReportWeek w, CancellationToken ct)
+    private Task<WeeklySummary> SummaryAsync(ReportWeek w, CancellationToken ct) =>
+        WeeklyRead.SummaryAsync(Readers(), w,
+            _areas ??= sources.Areas.Count > 0 ? sources.Areas : plant.Loops().Select(l => KeyValuePair.Create(l.Id, l.Area)).ToList(), ct);
+
+    // This agent's database, and the other shards' opened read-only once per request (a page reads up to three weeks)
+    // and closed with the response; one that cannot be read is named on the page and left out, so a stopped or moved
+    // agent never takes the whole summary down.
+    private List<StorageReader> Readers()
     {
-        var areas = sources.Areas.Count > 0 ? sources.Areas : plant.Loops().Select(l => KeyValuePair.Create(l.Id, l.Area)).ToList();
-        var others = new List<LoopWatchDatabase>();
-        NotIncluded.Clear();
-        try
+        if (_readers is not null) return _readers;
+        _readers = [reader];
+        foreach (var path in sources.Databases)
         {
-            foreach (var path in sources.Databases)
+            try
             {
-                try { others.Add(LoopWatchDatabase.OpenReadOnly(path)); }
-                catch (Exception e) when (e is IOException or StorageSchemaException or UnauthorizedAccessException) { NotIncluded.Add(e.Message); }
+                var database = LoopWatchDatabase.OpenReadOnly(path);
+                HttpContext.Response.RegisterForDispose(database);
+                _readers.Add(new StorageReader(database));
             }
-            Databases = 1 + others.Count;
-            return await WeeklyRead.SummaryAsync([reader, .. others.Select(d => new StorageReader(d))], w, areas, ct);
+            catch (Exception e) when (e is IOException or StorageSchemaException or UnauthorizedAccessException)
+            {
+                NotIncluded.Add(e.Message);
+            }
         }
-        finally
-        {
-            foreach (var d in others) d.Dispose();
-        }
+        return _readers;
     }
 }

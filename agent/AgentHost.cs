@@ -87,7 +87,11 @@ public static class AgentHost
         services.AddHostedService(sp => sp.GetRequiredService<Metrics.AgentMetrics>());
         services.AddHostedService<AlarmRestore>();
         services.AddHostedService<Valves.ValveCounterSaver>();
-        if (opts.Broker.Embedded) services.AddHostedService<EmbeddedBroker>();
+        if (opts.Broker.Embedded)
+        {
+            services.AddSingleton<EmbeddedBroker>();
+            services.AddHostedService(sp => sp.GetRequiredService<EmbeddedBroker>());
+        }
         services.AddHostedService<MqttIngest>();
         if (opts.Sparkplug.RequestRebirth) services.AddHostedService<Sparkplug.SparkplugRebirth>();
         services.AddHostedService<PlantTicker>();

@@ -36,6 +36,12 @@ public static partial class AgentLog
     [LoggerMessage(2001, LogLevel.Information, "Embedded MQTT broker listening on {Address}:{Port}")]
     public static partial void BrokerStarted(ILogger logger, string address, int port);
 
+    [LoggerMessage(2002, LogLevel.Warning, "Embedded MQTT broker dropped a message for {ClientId}: its queue was full ({Limit} messages, Broker:MaxPendingMessagesPerClient); {Dropped} dropped since start")]
+    public static partial void BrokerDropped(ILogger logger, string clientId, long dropped, int limit);
+
+    [LoggerMessage(2003, LogLevel.Warning, "Embedded MQTT broker lost client {ClientId} ({DisconnectType}, reason {Reason}); QoS 0 messages on its way are gone")]
+    public static partial void BrokerClientLost(ILogger logger, string clientId, string disconnectType, string reason);
+
     [LoggerMessage(3001, LogLevel.Information, "Demo plant publishing {Loops} loops at {Speed}x")]
     public static partial void DemoStarted(ILogger logger, int loops, double speed);
 

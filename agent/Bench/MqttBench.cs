@@ -46,6 +46,7 @@ internal static class MqttBench
                 baseline = PerSecond(g, bare.Tally);
                 if (bare.Tally.Count < g.Published)
                     progress.WriteLine($"bench: warning: the bare subscriber got {bare.Tally.Count:N0} of {g.Published:N0}; its rate is no fair baseline, repeat the run");
+                ReportBroker(broker, progress);
             }
 
             progress.WriteLine($"bench: agent, {o.Seconds:0.#} s " + (o.Rate is { } r ? $"at {r:0} updates/s" : "flat out"));
@@ -104,6 +105,7 @@ internal static class MqttBench
                     progress.WriteLine($"bench: warning: the agent ran {processed / baseline:0.0} times the bare subscriber's rate; the baseline run was disturbed (other load?), repeat the run");
                 var counters = plant.Counters();
                 progress.WriteLine($"bench: agent ingest counters: received {counters.Received}, accepted {counters.Accepted}, rejected {counters.Rejected}, unknown topic {counters.UnknownTopic}, late {counters.Late}, reconnects {counters.Reconnects}");
+                ReportBroker(broker, progress);
                 var heapAfter = GC.GetTotalMemory(forceFullCollection: true);
                 var rss = gauge.PeakRssMb;
                 await app.StopAsync(CancellationToken.None);
@@ -126,6 +128,12 @@ internal static class MqttBench
                 await broker.DisposeAsync();
             }
         }
+    }
+
+    // Where a lost message went: the embedded broker's own counts (an external broker's are in its log).
+    private static void ReportBroker(EmbeddedBroker? broker, TextWriter progress)
+    {
+        if (broker is not null) progress.WriteLine($"bench: embedded broker since start: dropped {broker.Dropped} (queue full), clients lost {broker.ClientsLost}");
     }
 
     // The agent keeps a persistent session (an hour) with a subscription per tag; left behind on an external broker by

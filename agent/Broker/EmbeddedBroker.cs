@@ -15,6 +15,13 @@ namespace LoopWatch.Agent.Broker;
 public sealed class EmbeddedBroker(BrokerOptions options, ILogger<EmbeddedBroker> log) : IHostedService, IAsyncDisposable
 {
     private MqttServer? _server;
+    private long _dropped, _droppedLogged, _clientsLost;
+
+    /// <summary>QoS 0 messages the broker dropped because a subscriber's queue was full (MQTTnet drops them silently).</summary>
+    public long Dropped => Interlocked.Read(ref _dropped);
+
+    /// <summary>Client connections that ended without a DISCONNECT (keep-alive timeout, reset, send timeout).</summary>
+    public long ClientsLost => Interlocked.Read(ref _clientsLost);
 
     /// <summary>Starts listening; throws when the port is taken.</summary>
     public async Task StartAsync(CancellationToken cancellationToken)
@@ -29,9 +36,34 @@ public sealed class EmbeddedBroker(BrokerOptions options, ILogger<EmbeddedBroker
             .WithMaxPendingMessagesPerClient(options.MaxPendingMessagesPerClient)
             .Build();
         _server = new MqttServerFactory().CreateMqttServer(serverOptions);
+        // Past the limit MQTTnet drops the oldest queued message (its default overflow strategy, kept) and says so only
+        // here; the enqueued-or-dropped event would cost an allocation per message and subscriber.
+        _server.QueuedApplicationMessageOverwrittenAsync += e =>
+        {
+            CountDrop(e.ReceiverClientId);
+            return Task.CompletedTask;
+        };
+        _server.ClientDisconnectedAsync += e =>
+        {
+            if (e.DisconnectType != MqttClientDisconnectType.Clean)
+            {
+                Interlocked.Increment(ref _clientsLost);
+                AgentLog.BrokerClientLost(log, e.ClientId, e.DisconnectType.ToString(), e.ReasonCode?.ToString() ?? "none");
+            }
+            return Task.CompletedTask;
+        };
         if (options.Username is { Length: > 0 } user) _server.ValidatingConnectionAsync += e => Validate(e, user, options.Password ?? "");
         await _server.StartAsync();
         AgentLog.BrokerStarted(log, address.ToString(), options.Port);
+    }
+
+    // The first drop is logged at once, then a line per further 10,000 at most, so a flood does not flood the log.
+    private void CountDrop(string receiver)
+    {
+        var n = Interlocked.Increment(ref _dropped);
+        var logged = Interlocked.Read(ref _droppedLogged);
+        if ((logged == 0 || n - logged >= 10_000) && Interlocked.CompareExchange(ref _droppedLogged, n, logged) == logged)
+            AgentLog.BrokerDropped(log, receiver, n, options.MaxPendingMessagesPerClient);
     }
 
     private static Task Validate(ValidatingConnectionEventArgs e, string user, string password)

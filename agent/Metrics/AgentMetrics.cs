@@ -23,14 +23,17 @@ public sealed class AgentMetrics : IHostedService
     private readonly PlantState _plant;
     private readonly AlarmEngine _alarms;
     private readonly AgentStorage _storage;
+    private readonly Broker.EmbeddedBroker? _broker;
     private readonly Counter _received, _accepted, _rejected, _unknown, _late, _rowsWritten, _rowsDropped;
+    private readonly Counter? _brokerDropped, _brokerClientsLost;
     private readonly Gauge _connected, _loops, _loopsByState, _activeAlarms;
     private readonly Histogram _commitSeconds;
     private StorageWriter? _writer;
 
-    /// <summary>Defines the metrics; nothing is read until the first scrape.</summary>
-    public AgentMetrics(PlantState plant, AlarmEngine alarms, AgentStorage storage)
+    /// <summary>Defines the metrics (the broker's only with the embedded broker); nothing is read until the first scrape.</summary>
+    public AgentMetrics(PlantState plant, AlarmEngine alarms, AgentStorage storage, Broker.EmbeddedBroker? broker = null)
     {
+        _broker = broker;
         _plant = plant;
         _alarms = alarms;
         _storage = storage;
@@ -49,6 +52,11 @@ public sealed class AgentMetrics : IHostedService
             new HistogramConfiguration { Buckets = Histogram.ExponentialBuckets(0.0005, 2, 14) }); // 0.5 ms .. about 4 s
         _rowsWritten = f.CreateCounter("loopwatch_db_rows_written_total", "Rows committed by the storage writer.");
         _rowsDropped = f.CreateCounter("loopwatch_db_rows_dropped_total", "Rows the storage writer dropped (queue full or lost at shutdown).");
+        if (broker is not null)
+        {
+            _brokerDropped = f.CreateCounter("loopwatch_broker_messages_dropped_total", "Messages the embedded broker dropped because a subscriber's queue was full.");
+            _brokerClientsLost = f.CreateCounter("loopwatch_broker_clients_lost_total", "Client connections of the embedded broker that ended without a DISCONNECT.");
+        }
         // Labelled series exist from the start, so a rate() over them never starts from a missing series.
         foreach (var r in Reasons) _rejected.WithLabels(Label(r.ToString()));
         foreach (var p in Priorities) _activeAlarms.WithLabels(Label(p.ToString()));
@@ -84,6 +92,11 @@ public sealed class AgentMetrics : IHostedService
         _unknown.IncTo(c.UnknownTopic);
         _late.IncTo(c.Late);
         _connected.Set(c.BrokerConnected ? 1 : 0);
+        if (_broker is not null)
+        {
+            _brokerDropped!.IncTo(_broker.Dropped);
+            _brokerClientsLost!.IncTo(_broker.ClientsLost);
+        }
 
         var counts = LoopCounts.Of(_plant.Loops());
         _loops.Set(counts.Total);

@@ -11,6 +11,8 @@ command -v mosquitto_pub >/dev/null 2>&1 || need+=(mosquitto-clients)
 command -v systemd-analyze >/dev/null 2>&1 || need+=(systemd)
 # chattr makes the database immutable in the read-only database tests (tests/agent/Storage/StorageFaultTests.cs).
 command -v chattr >/dev/null 2>&1 || need+=(e2fsprogs)
+# ss shows the TCP window scaling of the agent's broker connection (tests/agent/Ingest/ConnectionTests.cs).
+command -v ss >/dev/null 2>&1 || need+=(iproute2)
 if [ ${#need[@]} -gt 0 ]; then
   echo "test.sh: installing ${need[*]}"
   sudo_cmd=""

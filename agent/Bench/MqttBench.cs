@@ -7,7 +7,6 @@ using LoopWatch.Agent.Ingest;
 using LoopWatch.Analytics.Configuration;
 using Microsoft.Extensions.DependencyInjection;
 using Microsoft.Extensions.Logging;
-using Microsoft.Extensions.Logging.Abstractions;
 
 namespace LoopWatch.Agent.Bench;
 
@@ -21,12 +20,14 @@ internal static class MqttBench
     public static async Task<BenchResult> RunAsync(BenchOptions o, IReadOnlyList<LoopOptions> loops, ProcessGauge gauge, TextWriter progress, CancellationToken ct)
     {
         EmbeddedBroker? broker = null;
+        // The broker's warnings (a dropped message, a lost client) name the client on the console, as the agent's do.
+        using var brokerLogs = LoggerFactory.Create(b => b.AddSimpleConsole(c => c.SingleLine = true).SetMinimumLevel(LogLevel.Warning));
         var host = o.BrokerHost ?? "127.0.0.1";
         var port = o.BrokerPort;
         if (o.BrokerHost is null)
         {
             port = FreeLoopbackPort();
-            broker = new EmbeddedBroker(new BrokerOptions { Embedded = true, Port = port }, NullLogger<EmbeddedBroker>.Instance);
+            broker = new EmbeddedBroker(new BrokerOptions { Embedded = true, Port = port }, brokerLogs.CreateLogger<EmbeddedBroker>());
             await broker.StartAsync(ct);
         }
         try

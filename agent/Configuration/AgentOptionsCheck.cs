@@ -11,6 +11,8 @@ public static class AgentOptionsCheck
         if (string.IsNullOrWhiteSpace(b.Host)) errors.Add("Broker:Host: is missing");
         if (b.Port is < 1 or > 65535) errors.Add($"Broker:Port: {b.Port} is not a TCP port (1-65535)");
         if (b.Username is null && b.Password is not null) errors.Add("Broker:Username: is missing while Broker:Password is set");
+        // MQTT carries the keep-alive in two bytes; 0 would turn it off and leave a dead connection unnoticed.
+        if (b.KeepAliveSeconds is < 5 or > 65535) errors.Add($"Broker:KeepAliveSeconds: {b.KeepAliveSeconds} is not 5 to 65535 seconds");
         errors.AddRange(Broker.BrokerTls.Check(b));
     }
 

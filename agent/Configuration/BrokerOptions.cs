@@ -40,6 +40,12 @@ public sealed class BrokerOptions
     /// </summary>
     public string ListenAddress { get; set; } = "127.0.0.1";
 
+    /// <summary>
+    /// MQTT keep-alive of the agent's connections in seconds; default 60. The broker ends a connection silent for 1.5
+    /// times this, so a short one drops the subscription (and the QoS 0 messages on their way) when the host stalls.
+    /// </summary>
+    public int KeepAliveSeconds { get; set; } = 60;
+
     /// <summary>MQTT client id of the agent's subscription.</summary>
     public string ClientId { get; set; } = "loopwatch-agent";
 

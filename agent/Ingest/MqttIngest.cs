@@ -76,6 +76,7 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
         plant.TopicsChanged -= follow;
         if (client.IsConnected)
         {
+            plant.BrokerConnected = false; // our own disconnect: no warning
             try { await client.DisconnectAsync(new MqttClientDisconnectOptionsBuilder().Build(), CancellationToken.None); }
             catch (Exception) { /* shutting down: the broker may already be gone */ }
         }
@@ -87,8 +88,7 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
         var builder = Broker.BrokerClient.Builder(options, options.ClientId, reason => AgentLog.CertificateRefused(log, options.Host, options.Port, reason), c => certificate = c)
             .WithProtocolVersion(MQTTnet.Formatter.MqttProtocolVersion.V500)
             .WithCleanStart(false)
-            .WithSessionExpiryInterval(3600)
-            .WithKeepAlivePeriod(TimeSpan.FromSeconds(15));
+            .WithSessionExpiryInterval(3600);
         await client.ConnectAsync(builder.Build(), ct);
 
         var topics = plant.Topics.Concat(sparkplug.Filters).ToList();

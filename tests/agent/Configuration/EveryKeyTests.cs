@@ -34,6 +34,7 @@ public sealed class EveryKeyTests
         { "Broker:ClientId", "\"\"", "Broker:ClientId" },
         { "Broker:MaxPendingMessagesPerClient", "0", "Broker:MaxPendingMessagesPerClient" },
         { "Broker:MaxLeadSeconds", "-1", "Broker:MaxLeadSeconds" },
+        { "Broker:KeepAliveSeconds", "0", "Broker:KeepAliveSeconds" },
         { "Broker:ListenAddress", "\"not-an-address\"", "Broker:ListenAddress" },
         { "Dashboard:Urls", "\"ftp://127.0.0.1:21\"", "Dashboard:Urls" },
         { "Dashboard:Urls", "\"\"", "Dashboard:Urls" },

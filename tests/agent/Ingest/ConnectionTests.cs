@@ -21,7 +21,7 @@ public sealed class ConnectionTests
         using var timeout = new CancellationTokenSource(TimeSpan.FromSeconds(60));
         using var connection = await listener.AcceptTcpClientAsync(timeout.Token);
         var stream = connection.GetStream();
-        var packet = await ReadPacketAsync(stream, timeout.Token);
+        var packet = await MqttWire.ReadPacketAsync(stream, timeout.Token);
 
         // OASIS MQTT 5.0 section 3.1.2: CONNECT (type 1), protocol name "MQTT", level 5, connect flags, then the
         // keep-alive as a two-byte big-endian number of seconds.
@@ -56,23 +56,5 @@ public sealed class ConnectionTests
         var output = await p.StandardOutput.ReadToEndAsync();
         await p.WaitForExitAsync();
         return output;
-    }
-
-    private static async Task<(int Type, byte[] Body)> ReadPacketAsync(NetworkStream stream, CancellationToken ct)
-    {
-        var one = new byte[1];
-        await stream.ReadExactlyAsync(one, ct);
-        var type = one[0];
-        int length = 0, shift = 0;
-        do
-        {
-            await stream.ReadExactlyAsync(one, ct);
-            length |= (one[0] & 0x7F) << shift;
-            shift += 7;
-        }
-        while ((one[0] & 0x80) != 0);
-        var body = new byte[length];
-        await stream.ReadExactlyAsync(body, ct);
-        return (type, body);
     }
 }

@@ -15,7 +15,7 @@ namespace LoopWatch.Agent.Reload;
 /// whole (each problem logged with its key) and the running loops stay. Only <c>LoopWatch:Loops</c> is applied live.
 /// </summary>
 public sealed class LoopReload(AgentOptions started, IReadOnlyList<LoopSpec> specs, PlantState plant, AlarmEngine alarms, ValveWear valves,
-    AgentStorage storage, ILogger<LoopReload> log)
+    AgentStorage storage, Dashboard.Reports.WeeklySources weekly, ILogger<LoopReload> log)
 {
     private readonly SemaphoreSlim _gate = new(1, 1);
     private IReadOnlyList<LoopSpec> _running = specs;
@@ -53,6 +53,7 @@ public sealed class LoopReload(AgentOptions started, IReadOnlyList<LoopSpec> spe
                 foreach (var id in change.Changed) ServiceLog.LoopChanged(log, id, "changed");
             }
             _running = next;
+            weekly.Reconfigure(options.LoopAreas());
             ServiceLog.Reloaded(log, source.File, change.Added.Count, change.Removed.Count, change.Changed.Count, change.Kept.Count);
             return true;
         }

@@ -1,3 +1,4 @@
+using LoopWatch.Agent.Broker;
 using MQTTnet;
 using MQTTnet.Formatter;
 using MQTTnet.Protocol;
@@ -20,7 +21,7 @@ internal sealed class BareSubscriber(string host, int port, IReadOnlyList<string
             Tally.Take(e.ApplicationMessage.CorrelationData);
             return Task.CompletedTask;
         };
-        await _client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer(host, port).WithTcpServer(t => t.BufferSize = Broker.BrokerClient.SocketBufferBytes).WithClientId($"loopwatch-bench-bare-{Guid.NewGuid():N}")
+        await _client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer(host, port).WithSocketBuffers().WithClientId($"loopwatch-bench-bare-{Guid.NewGuid():N}")
             .WithKeepAlivePeriod(TimeSpan.FromSeconds(new Configuration.BrokerOptions().KeepAliveSeconds)) // as the agent's
             .WithProtocolVersion(MqttProtocolVersion.V500).WithCleanSession().Build(), ct);
         foreach (var chunk in topics.Chunk(500))

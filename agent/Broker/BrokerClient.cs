@@ -14,10 +14,13 @@ public static class BrokerClient
     /// </summary>
     public const int SocketBufferBytes = 1 << 20;
 
+    /// <summary>Asks for <see cref="SocketBufferBytes"/> on the connection; every MQTT client the agent makes uses it.</summary>
+    public static MqttClientOptionsBuilder WithSocketBuffers(this MqttClientOptionsBuilder builder) => builder.WithTcpServer(t => t.BufferSize = SocketBufferBytes);
+
     /// <summary>Address, client id, keep-alive, credentials and TLS as configured; the callbacks hear which broker certificate was refused and why, or accepted.</summary>
     public static MqttClientOptionsBuilder Builder(BrokerOptions broker, string clientId, Action<string>? refused = null, Action<string>? accepted = null)
     {
-        var b = new MqttClientOptionsBuilder().WithTcpServer(broker.Host, broker.Port).WithTcpServer(t => t.BufferSize = SocketBufferBytes).WithClientId(clientId).WithKeepAlivePeriod(TimeSpan.FromSeconds(broker.KeepAliveSeconds));
+        var b = new MqttClientOptionsBuilder().WithTcpServer(broker.Host, broker.Port).WithSocketBuffers().WithClientId(clientId).WithKeepAlivePeriod(TimeSpan.FromSeconds(broker.KeepAliveSeconds));
         if (broker.Username is not null) b.WithCredentials(broker.Username, broker.Password);
         return b.WithBrokerTls(broker, refused, accepted);
     }

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using LoopWatch.Agent.Broker;
 using LoopWatch.Agent.Configuration;
 using LoopWatch.Agent.Plant;
 using Microsoft.Extensions.Hosting;
@@ -18,7 +19,7 @@ public sealed class PlantPublisher(DemoPlant plant, BrokerOptions broker, DemoRu
     protected override async Task ExecuteAsync(CancellationToken stoppingToken)
     {
         using var client = new MqttClientFactory().CreateMqttClient();
-        var options = new MqttClientOptionsBuilder().WithTcpServer(broker.Host, broker.Port).WithTcpServer(t => t.BufferSize = Broker.BrokerClient.SocketBufferBytes).WithClientId("quillmoor-gateway")
+        var options = new MqttClientOptionsBuilder().WithTcpServer(broker.Host, broker.Port).WithSocketBuffers().WithClientId("quillmoor-gateway")
             .WithCredentials(broker.Username, broker.Password).Build();
         AgentLog.DemoStarted(log, plant.Loops.Count, run.Speed);
         var simStart = run.Start;

@@ -41,7 +41,7 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
             var nodes = sparkplug.Reroute(plant.Routes);
             _ = FollowAsync(factory, client, [.. added, .. nodes.Added], [.. removed, .. nodes.Dropped]);
         };
-        plant.TopicsChanged += follow;
+        plant.Reconfigured += follow;
         client.DisconnectedAsync += e =>
         {
             if (plant.BrokerConnected) AgentLog.Disconnected(log, e.Reason.ToString());
@@ -73,7 +73,7 @@ public sealed class MqttIngest(BrokerOptions options, PlantState plant, Sparkplu
             }
             await Task.Delay(TimeSpan.FromSeconds(1), time, stoppingToken).ConfigureAwait(ConfigureAwaitOptions.SuppressThrowing);
         }
-        plant.TopicsChanged -= follow;
+        plant.Reconfigured -= follow;
         if (client.IsConnected)
         {
             plant.BrokerConnected = false; // our own disconnect: no warning

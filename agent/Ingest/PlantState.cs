@@ -48,7 +48,7 @@ public sealed class PlantState : IPlantView
     }
 
     /// <summary>Raised after every <see cref="Reconfigure"/> with the plain topics to subscribe to and to drop (either list may be empty).</summary>
-    public event Action<IReadOnlyList<string>, IReadOnlyList<string>>? TopicsChanged;
+    public event Action<IReadOnlyList<string>, IReadOnlyList<string>>? Reconfigured;
 
     /// <summary>
     /// Takes a new set of loops while running (<paramref name="change"/> compares it with the running one): a kept loop
@@ -70,7 +70,7 @@ public sealed class PlantState : IPlantView
             var added = routes.Keys.Except(oldTopics).Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)).ToList();
             var dropped = oldTopics.Except(routes.Keys).Where(t => !Sparkplug.SparkplugTag.IsSparkplug(t)).ToList();
             // Raised even when no topic changed: a changed loop keeps its tags but gets new routes, which Sparkplug must take.
-            TopicsChanged?.Invoke(added, dropped);
+            Reconfigured?.Invoke(added, dropped);
         }
     }
 

@@ -39,7 +39,7 @@ public sealed class SparkplugReader
     /// <summary>The subscriptions that cover every edge node a loop tag names (4.1 "Topic Namespace Elements").</summary>
     public IReadOnlyList<string> Filters
     {
-        get { lock (_gate) return _nodes.Values.Select(n => SparkplugTopic.EdgeNodeFilter(n.Group, n.EdgeNode)).ToArray(); }
+        get { lock (_gate) return Filter(_nodes.Keys); }
     }
 
     /// <summary>
@@ -64,10 +64,10 @@ public sealed class SparkplugReader
             foreach (var key in _nodes.Keys.Where(k => !named.Contains(k)).ToList()) _nodes.Remove(key);
             return (Filter(_nodes.Keys.Where(k => !before.Contains(k))), Filter(before.Where(k => !named.Contains(k))));
         }
-
-        static string[] Filter(IEnumerable<(string Group, string EdgeNode)> nodes) =>
-            nodes.Select(n => SparkplugTopic.EdgeNodeFilter(n.Group, n.EdgeNode)).ToArray();
     }
+
+    private static string[] Filter(IEnumerable<(string Group, string EdgeNode)> nodes) =>
+        nodes.Select(n => SparkplugTopic.EdgeNodeFilter(n.Group, n.EdgeNode)).ToArray();
 
     /// <summary>The NCMD topics of rebirth requests waiting to be published (only ever written with the option on).</summary>
     public ChannelReader<string> RebirthRequests => _rebirths.Reader;

@@ -2,16 +2,12 @@ using System.Text.Json.Nodes;
 using LoopWatch.Agent.Tests.Infrastructure;
 using LoopWatch.Analytics.Configuration;
 using LoopWatch.Dashboard.Reports;
-using LoopWatch.Storage.Rows;
-using LoopWatch.Storage.Writing;
 
 namespace LoopWatch.Agent.Tests.Reload;
 
 /// <summary>The merged weekly page places other shards' loops by the configuration as reloaded, not as started.</summary>
 public sealed class WeeklyAreasReloadTests
 {
-    private const long HourMs = 3_600_000;
-
     [Fact]
     public async Task A_loop_of_another_shard_moved_to_another_area_is_counted_there_after_a_reload()
     {
@@ -30,15 +26,7 @@ public sealed class WeeklyAreasReloadTests
         // The other shard's database: 10 hours of its loop, 4 of them with an offset.
         var dir = Directory.CreateTempSubdirectory("lw-weekly-reload-").FullName;
         var other = Path.Combine(dir, "shard-1", "loopwatch.db");
-        Directory.CreateDirectory(Path.GetDirectoryName(other)!);
-        using (var db = LoopWatch.Storage.LoopWatchDatabase.Open(other))
-        {
-            await using var w = new StorageWriter(db);
-            for (var h = 0; h < 10; h++)
-                w.Post(new HourlyStatsRow { LoopId = theirs, HourMs = h0 + h * HourMs, Samples = 3600, SecondsOffset = h < 4 ? 600 : 0, SecondsAnyFinding = h < 4 ? 600 : 0 });
-            await w.FlushAsync();
-        }
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        await ShardDatabase.WriteAsync(other, theirs, h0, hours: 10, offsetHours: 4);
 
         var port = FreePort.Next();
         string Config(string southArea)

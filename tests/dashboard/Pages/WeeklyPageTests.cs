@@ -110,15 +110,8 @@ public sealed class WeeklyPageTests
 
         // The other agent's database, written by its own writer and closed, as a stopped or running shard leaves it.
         var other = Path.Combine(Directory.CreateTempSubdirectory("lw-shard-1-").FullName, "loopwatch.db");
-        using (var db = Storage.LoopWatchDatabase.Open(other))
-        {
-            await using var w = new Storage.Writing.StorageWriter(db);
-            // 10 hours, 4 of them with an offset.
-            for (var h = 0; h < 10; h++)
-                w.Post(new HourlyStatsRow { LoopId = theirs, HourMs = h0 + h * HourMs, Samples = 3600, SecondsOffset = h < 4 ? 600 : 0, SecondsAnyFinding = h < 4 ? 600 : 0 });
-            await w.FlushAsync();
-        }
-        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        // 10 hours, 4 of them with an offset.
+        await ShardDatabase.WriteAsync(other, theirs, h0, hours: 10, offsetHours: 4);
         var before = await File.ReadAllBytesAsync(other);
         var missing = Path.Combine(Path.GetTempPath(), $"lw-shard-2-{Guid.NewGuid():N}", "loopwatch.db");
 

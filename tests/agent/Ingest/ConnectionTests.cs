@@ -44,17 +44,10 @@ public sealed class ConnectionTests
         using var connection = await listener.AcceptTcpClientAsync(timeout.Token);
         var agentPort = ((IPEndPoint)connection.Client.RemoteEndPoint!).Port;
 
-        var ss = await Run("ss", "-tin", "state", "established", $"( sport = :{agentPort} )");
+        var (exit, ss, error) = await ToolRun.RunAsync("ss", "-tin", "state", "established", $"( sport = :{agentPort} )");
+        Assert.True(exit == 0, error);
         var scale = System.Text.RegularExpressions.Regex.Match(ss, @"wscale:(\d+),(\d+)");
         Assert.True(scale.Success, ss);
         Assert.True(int.Parse(scale.Groups[2].Value) > 0, $"the agent's socket offers no window scaling:\n{ss}");
-    }
-
-    private static async Task<string> Run(string file, params string[] args)
-    {
-        using var p = System.Diagnostics.Process.Start(new System.Diagnostics.ProcessStartInfo(file, args) { RedirectStandardOutput = true, UseShellExecute = false })!;
-        var output = await p.StandardOutput.ReadToEndAsync();
-        await p.WaitForExitAsync();
-        return output;
     }
 }

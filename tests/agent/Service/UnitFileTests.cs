@@ -1,4 +1,3 @@
-using System.Diagnostics;
 using LoopWatch.Agent.Tests.Infrastructure;
 
 namespace LoopWatch.Agent.Tests.Service;
@@ -58,13 +57,9 @@ public sealed class UnitFileTests
         await File.WriteAllTextAsync(copy, (await File.ReadAllTextAsync(UnitPath)).Replace(Binary, "/bin/true"));
         var tool = new[] { "/usr/bin/systemd-analyze", "/bin/systemd-analyze" }.FirstOrDefault(File.Exists)
             ?? throw new InvalidOperationException("systemd-analyze is not installed: run ./test.sh, which installs the Debian package 'systemd'");
-        var psi = new ProcessStartInfo(tool, ["verify", copy]) { RedirectStandardError = true, RedirectStandardOutput = true, UseShellExecute = false };
-        using var p = Process.Start(psi)!;
-        var errTask = p.StandardError.ReadToEndAsync();
-        var outTask = p.StandardOutput.ReadToEndAsync();
-        await p.WaitForExitAsync();
-        var output = await errTask + await outTask;
-        Assert.Equal(0, p.ExitCode);
+        var (exit, stdout, stderr) = await ToolRun.RunAsync(tool, "verify", copy);
+        var output = stderr + stdout;
+        Assert.Equal(0, exit);
         // Unknown keys and bad values are only warnings to systemd ("...service:12: Unknown key"), so no line may name the file.
         Assert.DoesNotContain("loopwatch.service", output);
     }

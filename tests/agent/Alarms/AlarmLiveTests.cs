@@ -26,7 +26,7 @@ public sealed class AlarmLiveTests
             services: s => s.AddSingleton<IActionGuard, HeaderGuard>());
         using var client = new MqttClientFactory().CreateMqttClient();
         await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", port).Build());
-        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "subscribed");
+        await agent.UntilSubscribedAsync("subscribed");
         await FeedAsync(client, "FIC-970", DateTimeOffset.UtcNow);
 
         var active = await Eventually.Until(async () => await agent.Http.GetFromJsonAsync<JsonElement>("/api/alarms?state=active"),

@@ -27,7 +27,7 @@ public sealed class MqttRoundTripTests
             tweak: o => o.Broker.MaxLeadSeconds = 3600);
         using var client = new MqttClientFactory().CreateMqttClient();
         await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", port).WithClientId("test-gateway").Build());
-        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+        await agent.UntilSubscribedAsync();
         foreach (var (at, tag, value) in rec.Values)
         {
             var payload = value is "auto" or "manual" ? $"\"{value}\"" : value;

@@ -14,7 +14,7 @@ public sealed class DiscoverCredentialsTests
         // The embedded broker of a running agent requires these credentials and carries the agent's retained health topics.
         await using var agent = await RunningAgent.StartAsync([TestLoops.Pid("FIC-151")], embedded: true, brokerPort: port,
             tweak: o => { o.Broker.Username = "quillmoor-survey"; o.Broker.Password = password; });
-        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+        await agent.UntilSubscribedAsync();
 
         var denied = new StringWriter();
         Assert.Equal(1, await Cli.RunAsync(["discover", "--broker", $"127.0.0.1:{port}", "--seconds", "1"], new StringWriter(), denied));

@@ -64,6 +64,10 @@ public sealed class RunningAgent : IAsyncDisposable
 
     public async Task<JsonElement> HealthAsync() => await Http.GetFromJsonAsync<JsonElement>("/healthz");
 
+    /// <summary>Waits until <c>/healthz</c> says the agent's subscription to the broker is up.</summary>
+    public Task UntilSubscribedAsync(string what = "agent subscribed") =>
+        Eventually.Until(async () => (await HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: what);
+
     public async Task<JsonElement?> LoopAsync(string id)
     {
         foreach (var l in (await LoopsAsync()).EnumerateArray()) if (l.GetProperty("id").GetString() == id) return l;

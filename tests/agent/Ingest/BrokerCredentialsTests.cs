@@ -25,7 +25,7 @@ public sealed class BrokerCredentialsTests
         await using var agent = await RunningAgent.StartAsync([TestLoops.Pid("FIC-940")], embedded: true, brokerPort: port, logging: Capture,
             tweak: o => { o.Broker.Username = options.Broker.Username; o.Broker.Password = options.Broker.Password; });
         // The agent's own subscription gets in with the configured credentials.
-        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed with credentials");
+        await agent.UntilSubscribedAsync("agent subscribed with credentials");
 
         // Anyone else needs them too.
         Assert.False(await ConnectsAsync(port, null, null));

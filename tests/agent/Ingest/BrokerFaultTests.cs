@@ -37,7 +37,7 @@ public sealed class BrokerFaultTests
             services: s => s.AddSingleton<IngestTap>((message, reason) => taken.Enqueue($"{reason} {message.Topic} {Encoding.UTF8.GetString(message.Payload)}")));
         Task UntilTaken(long count, string what, TimeSpan? timeout = null) =>
             Eventually.Until(() => Task.FromResult(taken.Distinct().Count()), n => n >= count, timeout ?? TimeSpan.FromSeconds(30), what);
-        await Eventually.Until(async () => Ingest(await agent.HealthAsync()).GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+        await agent.UntilSubscribedAsync();
         var subscribed = DateTime.UtcNow;
 
         // Event time a little behind the wall clock, one value per tag and second.

@@ -193,7 +193,7 @@ public sealed class BrokerTlsTests
     private static Action<ILoggingBuilder> Capture(FakeLoggerProvider logs) => b => { b.SetMinimumLevel(LogLevel.Trace); b.AddProvider(logs); };
 
     private static Task UntilConnected(RunningAgent agent) =>
-        Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed over TLS");
+        agent.UntilSubscribedAsync("agent subscribed over TLS");
 
     private static Task UntilAccepted(RunningAgent agent, long count) =>
         Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("accepted").GetInt64(), n => n >= count, what: $"{count} values accepted");

@@ -12,7 +12,7 @@ public sealed class LiveIngestTests
         await using var agent = await RunningAgent.StartAsync([TestLoops.Pid("FIC-900")], embedded: true, brokerPort: port);
         using var client = new MqttClientFactory().CreateMqttClient();
         await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", port).WithClientId("test-publisher").Build());
-        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+        await agent.UntilSubscribedAsync();
 
         await client.PublishStringAsync("test/FIC-900/pv", """{"value": 123.5, "timestamp": "2026-03-02T00:00:01Z"}""");
         await client.PublishStringAsync("test/FIC-900/sp", """{"value": 125, "timestamp": "2026-03-02T00:00:01Z"}""");
@@ -38,7 +38,7 @@ public sealed class LiveIngestTests
     {
         await using var broker = await Mosquitto.StartAsync();
         await using var agent = await RunningAgent.StartAsync([TestLoops.Pid("FIC-901"), TestLoops.Pid("FIC-902")], embedded: false, brokerPort: broker.Port);
-        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+        await agent.UntilSubscribedAsync();
 
         await broker.PublishAsync("test/FIC-901/pv", "77.5", qos: 1);
         await broker.PublishAsync("test/FIC-901/pv", "not a number {", qos: 1);

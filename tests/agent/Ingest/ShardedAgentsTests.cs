@@ -19,7 +19,7 @@ public sealed class ShardedAgentsTests
         await using var b = await RunningAgent.StartAsync(loops, embedded: false, broker.Port, tweak: o => o.Shard = new ShardOptions { Index = 1, Count = 2 });
         var agents = new[] { a, b };
         foreach (var agent in agents)
-            await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+            await agent.UntilSubscribedAsync();
 
         using var client = new MqttClientFactory().CreateMqttClient();
         await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", broker.Port).WithClientId("shard-test-publisher").Build());

@@ -21,7 +21,7 @@ public sealed class MetricsTests
     {
         await using var broker = await Mosquitto.StartAsync();
         await using var agent = await RunningAgent.StartAsync([TestLoops.FastStale("FIC-980"), TestLoops.Pid("FIC-981")], embedded: false, brokerPort: broker.Port);
-        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+        await agent.UntilSubscribedAsync();
 
         var t = DateTimeOffset.UtcNow;
         string At(double seconds) => t.AddSeconds(seconds).ToString("O");

@@ -41,7 +41,7 @@ public sealed class ConfigurationReloadTests
             var agent = await RunningAgent.StartFromFileAsync(config, Path.Combine(dir, "data"), logs);
             var publisher = new MqttClientFactory().CreateMqttClient();
             await publisher.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", broker.Port).WithClientId($"pub-{Guid.NewGuid():N}").Build());
-            await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+            await agent.UntilSubscribedAsync();
             return new Rig { Broker = broker, Agent = agent, Publisher = publisher, ConfigPath = config, Logs = logs };
         }
 

@@ -206,7 +206,7 @@ public sealed class SparkplugIngestTests
         {
             var broker = await Mosquitto.StartAsync();
             var agent = await RunningAgent.StartAsync(Loops(), embedded: false, brokerPort: broker.Port, tweak: o => o.Sparkplug.RequestRebirth = rebirth);
-            await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "agent subscribed");
+            await agent.UntilSubscribedAsync();
             return new Rig(broker, agent, await CommandWatcher.StartAsync(broker.Port));
         }
 

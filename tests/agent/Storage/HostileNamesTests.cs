@@ -43,7 +43,7 @@ public sealed class HostileNamesTests
         {
             using var client = new MqttClientFactory().CreateMqttClient();
             await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", port).Build());
-            await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "subscribed");
+            await agent.UntilSubscribedAsync("subscribed");
             var ts = DateTimeOffset.UtcNow.ToString("O");
             foreach (var (tag, v) in new[] { ("pv", 100.0), ("sp", 100.0), ("op", 40.0) })
                 await client.PublishStringAsync($"{Root}/{Id}/{tag}", $$"""{"value": {{v}}, "timestamp": "{{ts}}"}""");

@@ -209,7 +209,7 @@ public sealed class StorageFaultTests(ITestOutputHelper output)
         try
         {
             await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", port).Build());
-            await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "subscribed");
+            await agent.UntilSubscribedAsync("subscribed");
         }
         catch
         {

@@ -35,7 +35,7 @@ public static partial class PageRig
         var agent = await RunningAgent.StartAsync(loops, embedded: true, brokerPort: port);
         using var client = new MqttClientFactory().CreateMqttClient();
         await client.ConnectAsync(new MqttClientOptionsBuilder().WithTcpServer("127.0.0.1", port).Build());
-        await Eventually.Until(async () => (await agent.HealthAsync()).GetProperty("ingest").GetProperty("broker_connected").GetBoolean(), c => c, what: "subscribed");
+        await agent.UntilSubscribedAsync("subscribed");
         var ts = DateTimeOffset.UtcNow.ToString("O");
         foreach (var l in loops)
         {
